@@ -1,0 +1,48 @@
+import type { z } from 'zod'
+import { fieldErrorsFromZod, type FieldErrors } from '#shared/utils/fieldErrors'
+
+interface ServerError { statusCode?: number, data?: { message?: string, data?: { fields?: FieldErrors } } }
+
+/** The message and field errors of a failed $fetch, as the server's 4xx answers shape them. */
+export function readServerError(err: unknown): { message: string, fields: FieldErrors } {
+  const e = err as ServerError
+  const fields = { ...(e.data?.data?.fields ?? {}) }
+  const message = e.data?.message ?? 'Something went wrong. Please try again.'
+  return { message, fields }
+}
+
+/**
+ * A form bound to the same zod schema its route parses: checks on submit, shows a message per
+ * field, and maps the server's field messages back onto the inputs.
+ */
+export function useForm<S extends z.ZodType>(schema: S, initial: z.input<S>, onValid: (value: z.output<S>) => Promise<void>) {
+  const values = reactive(structuredClone(initial) as object) as z.input<S>
+  const errors = ref<FieldErrors>({})
+  const formError = ref('')
+  const pending = ref(false)
+
+  async function submit() {
+    errors.value = {}
+    formError.value = ''
+    const parsed = await schema.safeParseAsync(toRaw(values))
+    if (!parsed.success) {
+      errors.value = fieldErrorsFromZod(parsed.error)
+      formError.value = 'Please correct the fields marked below.'
+      return
+    }
+    pending.value = true
+    try {
+      await onValid(parsed.data)
+    }
+    catch (err) {
+      const { message, fields } = readServerError(err)
+      errors.value = fields
+      formError.value = message
+    }
+    finally {
+      pending.value = false
+    }
+  }
+
+  return { values, errors, formError, pending, submit }
+}

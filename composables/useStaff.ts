@@ -1,0 +1,40 @@
+import type { StaffRole } from '#shared/roles'
+
+export interface StaffMember {
+  id: number
+  name: string
+  email: string
+  role: StaffRole
+  disabled: boolean
+  invitationPending: boolean
+  createdAt: string
+}
+
+/** The manager's staff list and the actions on it; every change refreshes the list. */
+export function useStaff() {
+  const list = useFetch<StaffMember[]>('/api/staff', { key: 'staff', default: () => [] })
+  const message = ref('')
+  const error = ref('')
+
+  async function run(action: () => Promise<unknown>, done: string) {
+    message.value = ''
+    error.value = ''
+    try {
+      await action()
+      message.value = done
+      await refreshNuxtData('staff')
+    }
+    catch (err) {
+      error.value = readServerError(err).message
+    }
+  }
+
+  return {
+    ...list,
+    message,
+    error,
+    setRole: (m: StaffMember, role: StaffRole) => run(() => $fetch(`/api/staff/${m.id}`, { method: 'PATCH', body: { role } }), `${m.name} is now ${role}.`),
+    setDisabled: (m: StaffMember, disabled: boolean) => run(() => $fetch(`/api/staff/${m.id}`, { method: 'PATCH', body: { disabled } }), disabled ? `${m.name} can no longer sign in.` : `${m.name} can sign in again.`),
+    resendInvitation: (m: StaffMember) => run(() => $fetch(`/api/staff/${m.id}/invitation`, { method: 'POST' }), `A new invitation is on its way to ${m.email}.`),
+  }
+}

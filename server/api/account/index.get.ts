@@ -1,0 +1,14 @@
+import { eq } from 'drizzle-orm'
+
+export default defineEventHandler(async (event) => {
+  const me = await requireUser(event)
+  const [row] = await useDb().select({
+    id: tables.users.id,
+    name: tables.users.name,
+    email: tables.users.email,
+    role: tables.users.role,
+    dateOfBirth: tables.users.dateOfBirth,
+    createdAt: tables.users.createdAt,
+  }).from(tables.users).where(eq(tables.users.id, me.id))
+  return row!
+})

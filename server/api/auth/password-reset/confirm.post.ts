@@ -1,0 +1,1 @@
+export default defineEventHandler(async event => ({ user: await setPasswordFromLink(event, 'reset') }))

@@ -1,0 +1,16 @@
+import { asc, ne } from 'drizzle-orm'
+
+/** Staff accounts (not guests), for the manager's staff page. */
+export default defineEventHandler(async (event) => {
+  await requireRole(event, 'manager')
+  const rows = await useDb().select({
+    id: tables.users.id,
+    name: tables.users.name,
+    email: tables.users.email,
+    role: tables.users.role,
+    disabled: tables.users.disabled,
+    passwordHash: tables.users.passwordHash,
+    createdAt: tables.users.createdAt,
+  }).from(tables.users).where(ne(tables.users.role, 'guest')).orderBy(asc(tables.users.name))
+  return rows.map(({ passwordHash, ...r }) => ({ ...r, invitationPending: passwordHash === null }))
+})

@@ -1,0 +1,18 @@
+import { eq } from 'drizzle-orm'
+import { inviteSchema } from '../../../shared/schemas/staff'
+
+/** A manager invites a staff member: the account exists at once, the password comes from the link. */
+export default defineEventHandler(async (event) => {
+  const manager = await requireRole(event, 'manager')
+  const input = await readBodyAs(event, inviteSchema)
+  const id = await useDb().transaction(async (tx) => {
+    const [existing] = await tx.select({ id: tables.users.id }).from(tables.users).where(eq(tables.users.email, input.email)).for('update')
+    if (existing) throw createError({ statusCode: 409, statusMessage: 'Already registered', message: 'An account with this e-mail already exists.', data: { fields: { email: 'An account with this e-mail already exists.' } } })
+    const [row] = await tx.insert(tables.users).values({ email: input.email, name: input.name, role: input.role }).$returningId()
+    await queueInvitation(tx, { userId: row!.id, email: input.email, name: input.name, role: input.role, invitedBy: manager })
+    return row!.id
+  })
+  kickOutbox()
+  setResponseStatus(event, 201)
+  return { id, invitationPending: true }
+})

@@ -1,0 +1,4 @@
+export * from './venues'
+export * from './users'
+export * from './mail'
+export * from './products'

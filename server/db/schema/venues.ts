@@ -1,0 +1,26 @@
+import { mysqlTable, int, varchar, char, text, mysqlEnum, double } from 'drizzle-orm/mysql-core'
+import { timestamps } from './common'
+
+/** One venue today; every venue-scoped table will carry venue_id. */
+export const venues = mysqlTable('venues', {
+  id: int('id').autoincrement().primaryKey(),
+  name: varchar('name', { length: 120 }).notNull(),
+  address: varchar('address', { length: 400 }).notNull(),
+  /** IANA zone, e.g. Europe/Lisbon: every instant is stored in UTC and shown in this zone. */
+  timeZone: varchar('time_zone', { length: 64 }).notNull(),
+  /** ISO 4217 code; amounts elsewhere are integer minor units of it. */
+  currency: char('currency', { length: 3 }).notNull(),
+  legalAge: int('legal_age').notNull(),
+  volumeUnit: mysqlEnum('volume_unit', ['ml', 'floz']).notNull().default('ml'),
+  temperatureUnit: mysqlEnum('temperature_unit', ['c', 'f']).notNull().default('c'),
+  standardDrinkKind: mysqlEnum('standard_drink_kind', ['us', 'uk', 'au', 'custom']).notNull(),
+  /** Grams of ethanol in one standard drink under the chosen definition. */
+  standardDrinkGrams: double('standard_drink_grams').notNull(),
+  /** Per-guest ceiling for one flight, grams of ethanol. */
+  guestEthanolLimitGrams: double('guest_ethanol_limit_grams').notNull(),
+  cancellationCutoffHours: int('cancellation_cutoff_hours').notNull().default(24),
+  cautions: text('cautions').notNull(),
+  ...timestamps,
+})
+
+export type Venue = typeof venues.$inferSelect

@@ -1,0 +1,60 @@
+/**
+ * Demo data: a fictional tasting room and its people, invented for Larmoir. Loaded only when the
+ * database is empty and NUXT_DEMO_SEED is on (the start command sets it).
+ */
+import type { Allergen, ProductKind } from '../../shared/products'
+
+export const DEMO_PASSWORD = 'demo-tasting-2026'
+
+export const DEMO_VENUE = {
+  name: 'Saltmarsh & Vine Tasting Room',
+  address: '7 Heron Quay, Wrenfield, ME 04999, USA',
+  timeZone: 'America/New_York',
+  currency: 'USD',
+  legalAge: 21,
+  volumeUnit: 'floz' as const,
+  temperatureUnit: 'f' as const,
+  standardDrinkKind: 'us' as const,
+  standardDrinkGrams: 14,
+  guestEthanolLimitGrams: 42,
+  cancellationCutoffHours: 24,
+  cautions: [
+    'Please do not drive after your tasting; we are glad to call you a taxi.',
+    'If you are pregnant or may be, we recommend not drinking alcohol.',
+    'You must be of legal drinking age; we check ID at the door.',
+    'Our hosts may decline to serve anyone, following local law and licensed practice.',
+  ].join('\n'),
+}
+
+export const DEMO_USERS = [
+  { email: 'manager@saltmarsh.test', name: 'Odile Brannock', role: 'manager' as const, dateOfBirth: null },
+  { email: 'host@saltmarsh.test', name: 'Teodor Vasko', role: 'host' as const, dateOfBirth: null },
+  { email: 'marketing@saltmarsh.test', name: 'Priya Lindqvist', role: 'marketing' as const, dateOfBirth: null },
+  { email: 'guest@saltmarsh.test', name: 'Maren Achterberg', role: 'guest' as const, dateOfBirth: '1988-04-17' },
+]
+
+export interface DemoProduct {
+  code: string
+  kind: ProductKind
+  name: string
+  producer: string
+  vintageOrBatch: string | null
+  servingTempC: number
+  allergens: Allergen[]
+  bottleSizeMl: number
+  costPerBottleMinor: number
+  abvPctVol: number
+  residualSugarGL: number
+}
+
+const LAB = { lab: 'Wrenfield Cellar Lab (demo)', method: 'Ebulliometry / enzymatic glucose-fructose' }
+export const DEMO_LAB = LAB
+
+export const DEMO_PRODUCTS: DemoProduct[] = [
+  { code: 'SV-CID-21', kind: 'cider', name: 'Orchard Gate Dry Cider', producer: 'Saltmarsh & Vine', vintageOrBatch: 'Batch 21', servingTempC: 8, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 900, abvPctVol: 6.2, residualSugarGL: 4 },
+  { code: 'SV-ALB-24', kind: 'still_wine', name: 'Tidewater Albariño', producer: 'Saltmarsh & Vine', vintageOrBatch: '2024', servingTempC: 9, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1400, abvPctVol: 12.5, residualSugarGL: 2.1 },
+  { code: 'SV-SPK-22', kind: 'sparkling', name: 'Heron Quay Brut', producer: 'Saltmarsh & Vine', vintageOrBatch: '2022', servingTempC: 7, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 2100, abvPctVol: 11.8, residualSugarGL: 8 },
+  { code: 'SV-CF-23', kind: 'still_wine', name: 'Driftwood Cabernet Franc', producer: 'Saltmarsh & Vine', vintageOrBatch: '2023', servingTempC: 16, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1700, abvPctVol: 13.6, residualSugarGL: 1.5 },
+  { code: 'SV-FOR-19', kind: 'fortified', name: 'Low Tide Fortified Red', producer: 'Saltmarsh & Vine', vintageOrBatch: '2019', servingTempC: 16, allergens: ['sulfites'], bottleSizeMl: 500, costPerBottleMinor: 2300, abvPctVol: 19.5, residualSugarGL: 98 },
+  { code: 'SV-GIN-07', kind: 'spirit', name: 'Marsh Samphire Gin', producer: 'Saltmarsh & Vine Still', vintageOrBatch: 'Batch 7', servingTempC: 18, allergens: [], bottleSizeMl: 700, costPerBottleMinor: 1900, abvPctVol: 43, residualSugarGL: 0 },
+]

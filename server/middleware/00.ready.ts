@@ -1,0 +1,9 @@
+/** No request is served before the migrations have run; a database that is down answers 503. */
+export default defineEventHandler(async () => {
+  try {
+    await whenReady()
+  }
+  catch {
+    throw createError({ statusCode: 503, statusMessage: 'Service unavailable', message: 'The database is not answering. Please try again in a moment.' })
+  }
+})

@@ -1,0 +1,18 @@
+export const PRODUCT_KINDS = ['still_wine', 'sparkling', 'fortified', 'spirit', 'beer', 'cider', 'other'] as const
+export type ProductKind = (typeof PRODUCT_KINDS)[number]
+export const PRODUCT_KIND_LABELS: Record<ProductKind, string> = {
+  still_wine: 'Still wine',
+  sparkling: 'Sparkling wine',
+  fortified: 'Fortified wine',
+  spirit: 'Spirit',
+  beer: 'Beer',
+  cider: 'Cider',
+  other: 'Other',
+}
+
+export const PRODUCT_STATUSES = ['active', 'retired'] as const
+export type ProductStatus = (typeof PRODUCT_STATUSES)[number]
+
+/** Allergens a label must declare in the EU (Regulation 1169/2011, Annex II) and sulfites over 10 mg/L. */
+export const ALLERGENS = ['sulfites', 'gluten', 'milk', 'egg', 'fish', 'nuts', 'soy', 'celery', 'mustard', 'sesame', 'lupin', 'molluscs', 'crustaceans', 'peanuts'] as const
+export type Allergen = (typeof ALLERGENS)[number]

@@ -1,0 +1,129 @@
+import { describe, expect, it } from 'vitest'
+import { Client, uniqueEmail } from '../support/http'
+import { countRows } from '../support/db'
+import { DEMO_PASSWORD } from '../../server/demo/data'
+
+const adult = { name: 'Ruth Okonkwo', password: 'a-long-enough-secret', dateOfBirth: '1990-06-01' }
+
+describe('guest sign-up', () => {
+  it('creates a guest account and signs it in', async () => {
+    const c = new Client()
+    const email = uniqueEmail('signup')
+    const res = await c.post('/api/auth/signup', { ...adult, email: email.toUpperCase() })
+    expect(res.status).toBe(201)
+    expect(res.body.user).toMatchObject({ email, role: 'guest' })
+    const me = await c.get('/api/account')
+    expect(me.status).toBe(200)
+    expect(me.body).toMatchObject({ email, role: 'guest', dateOfBirth: '1990-06-01' })
+  })
+
+  it('refuses a duplicate e-mail with a field message and writes nothing', async () => {
+    const email = uniqueEmail('dup')
+    expect((await new Client().post('/api/auth/signup', { ...adult, email })).status).toBe(201)
+    const before = await countRows('users')
+    const res = await new Client().post('/api/auth/signup', { ...adult, email })
+    expect(res.status).toBe(409)
+    expect(res.body.data.fields.email).toMatch(/already exists/)
+    expect(await countRows('users')).toBe(before)
+  })
+
+  it.each([
+    ['a short password', { password: 'short' }, 'password', /at least 10 characters/],
+    ['a malformed date', { dateOfBirth: '1990-13-45' }, 'dateOfBirth', /does not exist|YYYY-MM-DD/],
+    ['a date in the wrong format', { dateOfBirth: '01/06/1990' }, 'dateOfBirth', /YYYY-MM-DD/],
+    ['a missing name', { name: '' }, 'name', /Enter a name/],
+    ['a bad e-mail', { email: 'not-an-address' }, 'email', /valid e-mail/],
+    ['a number for the name', { name: 42 }, 'name', /Enter a name/],
+  ])('answers 400 for %s', async (_label, patch, field, message) => {
+    const before = await countRows('users')
+    const res = await new Client().post('/api/auth/signup', { ...adult, email: uniqueEmail('bad'), ...patch })
+    expect(res.status).toBe(400)
+    expect(res.body.data.fields[field]).toMatch(message)
+    expect(await countRows('users')).toBe(before)
+  })
+
+  it('refuses someone under the venue\'s legal drinking age', async () => {
+    const venue = (await new Client().get('/api/venue')).body
+    const d = new Date()
+    const dob = `${d.getUTCFullYear() - venue.legalAge + 1}-01-01`
+    const res = await new Client().post('/api/auth/signup', { ...adult, email: uniqueEmail('young'), dateOfBirth: dob })
+    expect(res.status).toBe(400)
+    expect(res.body.data.fields.dateOfBirth).toMatch(new RegExp(`at least ${venue.legalAge}`))
+  })
+
+  it('answers 400 to a body that is not JSON', async () => {
+    const res = await new Client().request('POST', '/api/auth/signup', '{"name": "x",', { 'content-type': 'application/json' })
+    expect(res.status).toBe(400)
+    expect(res.body.message).toMatch(/not valid JSON/)
+  })
+})
+
+describe('sign-in and sign-out', () => {
+  it('signs in with the right password, refuses the wrong one, and signs out', async () => {
+    const c = new Client()
+    const wrong = await c.signIn('host@saltmarsh.test', 'not-the-password')
+    expect(wrong.status).toBe(401)
+    expect(wrong.body.message).toMatch(/do not match/)
+    const ok = await c.signIn('host@saltmarsh.test', DEMO_PASSWORD)
+    expect(ok.status).toBe(200)
+    expect(ok.body.user.role).toBe('host')
+    expect((await c.get('/api/account')).status).toBe(200)
+    expect((await c.post('/api/auth/signout')).status).toBe(200)
+    expect((await c.get('/api/account')).status).toBe(401)
+  })
+
+  it('gives an unknown e-mail the same answer as a wrong password', async () => {
+    const res = await new Client().signIn(uniqueEmail('nobody'), 'whatever-password')
+    expect(res.status).toBe(401)
+    expect(res.body.message).toMatch(/do not match/)
+  })
+
+  it('stores only a hash of the password', async () => {
+    const email = uniqueEmail('hash')
+    await new Client().post('/api/auth/signup', { ...adult, email })
+    const hash = await import('../support/db').then(m => m.withDb(async (c) => {
+      const [rows] = await c.query('SELECT password_hash AS h FROM users WHERE email = ?', [email])
+      return (rows as { h: string }[])[0]!.h
+    }))
+    expect(hash).not.toContain(adult.password)
+    expect(hash).toMatch(/^\$scrypt\$/)
+  })
+})
+
+describe('sign-in throttling', () => {
+  it('locks an account after 5 failures, even for the right password, with a retry time', async () => {
+    const email = uniqueEmail('lock')
+    await new Client().post('/api/auth/signup', { ...adult, email })
+    const attacker = new Client()
+    for (let i = 0; i < 5; i++) expect((await attacker.signIn(email, `wrong-${i}-password`)).status).toBe(401)
+    const locked = await attacker.signIn(email, `wrong-again`)
+    expect(locked.status).toBe(429)
+    expect(locked.body.message).toMatch(/for this account\. Try again in 15 minutes/)
+    expect(locked.body.data.retryAfterSeconds).toBeGreaterThan(14 * 60)
+    expect(Number(locked.headers.get('retry-after'))).toBeGreaterThan(14 * 60)
+    // The owner, from another address and with the right password, is held back too.
+    const owner = await new Client().signIn(email, adult.password)
+    expect(owner.status).toBe(429)
+  })
+
+  it('locks an address after 30 failures across accounts, and only that address', async () => {
+    const email = uniqueEmail('iplock')
+    await new Client().post('/api/auth/signup', { ...adult, email })
+    const sprayer = new Client()
+    for (let i = 0; i < 30; i++) expect((await sprayer.signIn(uniqueEmail(`spray${i}`), 'password-guess')).status).toBe(401)
+    const blocked = await sprayer.signIn(email, adult.password)
+    expect(blocked.status).toBe(429)
+    expect(blocked.body.message).toMatch(/from your network/)
+    expect((await new Client().signIn(email, adult.password)).status).toBe(200)
+  })
+
+  it('a successful sign-in clears the account\'s failures', async () => {
+    const email = uniqueEmail('clear')
+    await new Client().post('/api/auth/signup', { ...adult, email })
+    const c = new Client()
+    for (let i = 0; i < 4; i++) await c.signIn(email, 'nope-nope-nope')
+    expect((await c.signIn(email, adult.password)).status).toBe(200)
+    for (let i = 0; i < 4; i++) expect((await c.signIn(email, 'nope-nope-nope')).status).toBe(401)
+    expect((await c.signIn(email, adult.password)).status).toBe(200)
+  })
+})

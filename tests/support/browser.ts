@@ -1,0 +1,43 @@
+import { mkdtempSync, mkdirSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { resolve } from 'node:path'
+import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { inject } from 'vitest'
+
+/** Debian's chromium, with the flags this machine needs, and a fresh profile each time. */
+const FLAGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync']
+
+export const SHOTS_DIR = resolve(import.meta.dirname, '../../test-results/screenshots')
+
+export async function openBrowser(viewport = { width: 1280, height: 900 }): Promise<{ context: BrowserContext, close: () => Promise<void> }> {
+  const profile = mkdtempSync(resolve(tmpdir(), 'larmoir-chromium-'))
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium',
+    args: FLAGS,
+    headless: true,
+    viewport,
+    baseURL: inject('appUrl'),
+  })
+  return {
+    context,
+    close: async () => {
+      await context.close()
+      rmSync(profile, { recursive: true, force: true })
+    },
+  }
+}
+
+export async function shot(page: Page, name: string): Promise<string> {
+  mkdirSync(SHOTS_DIR, { recursive: true })
+  const path = resolve(SHOTS_DIR, `${name}.png`)
+  await page.screenshot({ path, fullPage: true })
+  return path
+}
+
+export async function signInThroughForm(page: Page, email: string, password: string) {
+  await page.goto('/signin')
+  await page.getByLabel('E-mail').fill(email)
+  await page.getByLabel('Password').fill(password)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+}

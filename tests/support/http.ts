@@ -1,0 +1,50 @@
+import { inject } from 'vitest'
+
+export interface Reply<T = any> { status: number, body: T, headers: Headers }
+
+/**
+ * A tiny HTTP client with its own cookie jar, one per simulated person. Each client also claims its
+ * own client address through X-Forwarded-For (the test server trusts it), so per-address sign-in
+ * throttling in one test does not leak into another.
+ */
+export class Client {
+  private cookies = new Map<string, string>()
+  constructor(readonly ip = `10.${rnd()}.${rnd()}.${rnd()}`) {}
+
+  async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Reply<T>> {
+    const res = await fetch(`${inject('appUrl')}${path}`, {
+      method,
+      redirect: 'manual',
+      headers: {
+        'x-forwarded-for': this.ip,
+        ...(body !== undefined && typeof body !== 'string' ? { 'content-type': 'application/json' } : {}),
+        ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } : {}),
+        ...headers,
+      },
+      body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
+    })
+    for (const c of res.headers.getSetCookie()) {
+      const [pair = ''] = c.split(';')
+      const [name = '', ...value] = pair.split('=')
+      if (/max-age=0|expires=Thu, 01 Jan 1970/i.test(c)) this.cookies.delete(name)
+      else this.cookies.set(name, value.join('='))
+    }
+    const text = await res.text()
+    let parsed: unknown = text
+    try { parsed = JSON.parse(text) }
+    catch { /* not JSON */ }
+    return { status: res.status, body: parsed as T, headers: res.headers }
+  }
+
+  get = <T = any>(path: string) => this.request<T>('GET', path)
+  post = <T = any>(path: string, body?: unknown, headers?: Record<string, string>) => this.request<T>('POST', path, body ?? {}, headers)
+  patch = <T = any>(path: string, body?: unknown) => this.request<T>('PATCH', path, body ?? {})
+
+  async signIn(email: string, password: string): Promise<Reply> {
+    return this.post('/api/auth/signin', { email, password })
+  }
+}
+
+function rnd() { return Math.floor(Math.random() * 250) + 1 }
+
+export const uniqueEmail = (tag: string) => `${tag}-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 7)}@example.test`

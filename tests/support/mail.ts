@@ -1,0 +1,22 @@
+import { inject } from 'vitest'
+import type { StoredMail } from '../../scripts/fakes/mail'
+
+/** Waits until the e-mail fake holds `count` messages to `to` whose subject matches, and returns it. */
+export async function waitForMail(to: string, subject: RegExp, opts: { count?: number, timeoutMs?: number } = {}): Promise<StoredMail> {
+  const { count = 1, timeoutMs = 10_000 } = opts
+  const until = Date.now() + timeoutMs
+  for (;;) {
+    const res = await fetch(`${inject('mailUrl')}/messages?to=${encodeURIComponent(to)}`)
+    const list = await res.json() as StoredMail[]
+    const hits = list.filter(m => subject.test(m.subject))
+    if (hits.length >= count) return hits[count - 1]!
+    if (Date.now() > until) throw new Error(`no e-mail to ${to} matching ${subject} within ${timeoutMs} ms`)
+    await new Promise(r => setTimeout(r, 150))
+  }
+}
+
+export function linkToken(mail: StoredMail, path: string): string {
+  const m = mail.text.match(new RegExp(`${path.replace('/', '\\/')}\\?token=([\\w-]{43})`))
+  if (!m?.[1]) throw new Error(`no ${path} link in the e-mail`)
+  return m[1]
+}

@@ -1,0 +1,38 @@
+import { describe, expect, it } from 'vitest'
+import { ageOn, signUpSchema } from '../../shared/schemas/auth'
+import { venueSchema } from '../../shared/schemas/venue'
+import { inviteSchema, staffPatchSchema } from '../../shared/schemas/staff'
+import { fieldErrorsFromZod } from '../../shared/utils/fieldErrors'
+
+describe('age on a given day', () => {
+  it.each([
+    ['2005-12-02', '2026-12-01', 20],
+    ['2005-12-01', '2026-12-01', 21],
+    ['2004-02-29', '2025-02-28', 20],
+    ['2004-02-29', '2025-03-01', 21],
+  ])('born %s, on %s: %i', (dob, day, age) => expect(ageOn(dob, day)).toBe(age))
+})
+
+describe('shared schemas', () => {
+  it('sign-up normalises the e-mail and gives one message per bad field', () => {
+    const ok = signUpSchema.parse({ name: ' Ann ', email: ' Ann@Example.TEST ', password: 'long-enough-1', dateOfBirth: '1980-01-01' })
+    expect(ok).toMatchObject({ name: 'Ann', email: 'ann@example.test' })
+    const bad = signUpSchema.safeParse({ email: 'x', password: 1, dateOfBirth: '2021-02-29' })
+    expect(bad.success).toBe(false)
+    expect(Object.keys(fieldErrorsFromZod(bad.error!)).sort()).toEqual(['dateOfBirth', 'email', 'name', 'password'])
+  })
+
+  it('invitations take only staff roles', () => {
+    expect(inviteSchema.safeParse({ name: 'A', email: 'a@b.test', role: 'guest' }).success).toBe(false)
+    expect(inviteSchema.safeParse({ name: 'A', email: 'a@b.test', role: 'marketing' }).success).toBe(true)
+    expect(staffPatchSchema.safeParse({}).success).toBe(false)
+  })
+
+  it('venue settings: the standard drink follows the definition unless custom', () => {
+    const base = { name: 'V', address: 'A', timeZone: 'Europe/Lisbon', currency: 'eur', legalAge: 18, volumeUnit: 'ml', temperatureUnit: 'c', guestEthanolLimitGrams: 40, cancellationCutoffHours: 24, cautions: 'c' } as const
+    expect(venueSchema.parse({ ...base, standardDrinkKind: 'au', standardDrinkGrams: 3 }).standardDrinkGrams).toBe(10) // Australian standard drink: 10 g
+    expect(venueSchema.parse({ ...base, standardDrinkKind: 'custom', standardDrinkGrams: 12 }).standardDrinkGrams).toBe(12)
+    expect(venueSchema.parse({ ...base, standardDrinkKind: 'us', standardDrinkGrams: 1 }).currency).toBe('EUR')
+    expect(venueSchema.safeParse({ ...base, timeZone: 'Nowhere/Else', standardDrinkKind: 'us', standardDrinkGrams: 14 }).success).toBe(false)
+  })
+})
