@@ -30,14 +30,17 @@ export const DEMO_PROFILE: StackProfile = {
   },
 }
 
+/** LARMOIR_PORT_OFFSET shifts every test port, so two checkouts can run their tests side by side. */
+const offset = Number(process.env.LARMOIR_PORT_OFFSET ?? 0) || 0
+
 export const TEST_PROFILE: StackProfile = {
   name: 'test',
-  db: TEST_DB,
-  appPort: 3100,
-  smtpPort: 2526,
-  mailHttpPort: 1081,
+  db: { ...TEST_DB, port: TEST_DB.port + offset },
+  appPort: 3100 + offset,
+  smtpPort: 2526 + offset,
+  mailHttpPort: 1081 + offset,
   env: {
-    NUXT_APP_URL: 'http://127.0.0.1:3100',
+    NUXT_APP_URL: `http://127.0.0.1:${3100 + offset}`,
     NUXT_DEMO_SEED: 'true',
     NUXT_TRUST_PROXY: 'true',
     NUXT_OUTBOX_INTERVAL_SECONDS: '1',

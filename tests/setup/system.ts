@@ -1,6 +1,6 @@
 import type { TestProject } from 'vitest/node'
 import { ensureDebianPackage } from '../../scripts/lib/apt'
-import { TEST_DB, databaseUrl, stopDb } from '../../scripts/lib/mariadb'
+import { databaseUrl, stopDb } from '../../scripts/lib/mariadb'
 import { TEST_PROFILE, startStack } from '../../scripts/lib/stack'
 
 declare module 'vitest' {
@@ -19,9 +19,9 @@ export default async function setup(project: TestProject) {
   console.log(`[tests] MariaDB, e-mail fake and app up in ${Date.now() - started} ms`)
   project.provide('appUrl', stack.app.url)
   project.provide('mailUrl', stack.mailUrl)
-  project.provide('databaseUrl', databaseUrl(TEST_DB))
+  project.provide('databaseUrl', databaseUrl(TEST_PROFILE.db))
   return async () => {
     await stack.stop()
-    await stopDb(TEST_DB)
+    await stopDb(TEST_PROFILE.db)
   }
 }
