@@ -58,3 +58,47 @@ export const DEMO_PRODUCTS: DemoProduct[] = [
   { code: 'SV-FOR-19', kind: 'fortified', name: 'Low Tide Fortified Red', producer: 'Saltmarsh & Vine', vintageOrBatch: '2019', servingTempC: 16, allergens: ['sulfites'], bottleSizeMl: 500, costPerBottleMinor: 2300, abvPctVol: 19.5, residualSugarGL: 98 },
   { code: 'SV-GIN-07', kind: 'spirit', name: 'Marsh Samphire Gin', producer: 'Saltmarsh & Vine Still', vintageOrBatch: 'Batch 7', servingTempC: 18, allergens: [], bottleSizeMl: 700, costPerBottleMinor: 1900, abvPctVol: 43, residualSugarGL: 0 },
 ]
+
+/**
+ * Glass shapes every new venue starts with; the manager edits them. Dimensions are typical of
+ * each style (common practice, no source).
+ */
+export const DEFAULT_GLASSES = [
+  { name: 'Tulip wine glass', bowlDiameterMm: 84, wallAngleDeg: 78, fillHeightMm: 38 },
+  { name: 'Flute', bowlDiameterMm: 52, wallAngleDeg: 86, fillHeightMm: 70 },
+  { name: 'Nosing glass', bowlDiameterMm: 62, wallAngleDeg: 70, fillHeightMm: 22 },
+  { name: 'Stemless tasting tumbler', bowlDiameterMm: 70, wallAngleDeg: 84, fillHeightMm: 30 },
+]
+
+/** Demo flights: pours by product code, glass by name, volume mL, serving °C. */
+export const DEMO_FLIGHTS = [
+  {
+    name: 'Shoreline Flight',
+    summary: 'From a dry cider to our samphire gin: six pours, lightest to strongest, each with its own show on the glass.',
+    publish: true,
+    pours: [
+      { code: 'SV-CID-21', glass: 'Stemless tasting tumbler', volumeMl: 90, servingTempC: 8 },
+      { code: 'SV-SPK-22', glass: 'Flute', volumeMl: 60, servingTempC: 7 },
+      { code: 'SV-ALB-24', glass: 'Tulip wine glass', volumeMl: 60, servingTempC: 10 },
+      { code: 'SV-CF-23', glass: 'Tulip wine glass', volumeMl: 60, servingTempC: 16 },
+      { code: 'SV-FOR-19', glass: 'Nosing glass', volumeMl: 45, servingTempC: 16 },
+      { code: 'SV-GIN-07', glass: 'Nosing glass', volumeMl: 15, servingTempC: 18 },
+    ],
+  },
+  {
+    name: 'After Dark (in the works)',
+    summary: 'A short, stronger flight for evening sessions.',
+    publish: false,
+    pours: [
+      { code: 'SV-CF-23', glass: 'Tulip wine glass', volumeMl: 60, servingTempC: 17 },
+      { code: 'SV-FOR-19', glass: 'Nosing glass', volumeMl: 45, servingTempC: 16 },
+      { code: 'SV-GIN-07', glass: 'Nosing glass', volumeMl: 20, servingTempC: 18 },
+    ],
+  },
+]
+
+/** Weekly demo sessions of the published flight, from the coming week on. */
+export const DEMO_SESSION_SERIES = [
+  { weekday: 6, startTime: '14:00', weeks: 8, durationMinutes: 75, seats: 12, priceMinor: 3500, bookingCutoffMinutes: 120 },
+  { weekday: 5, startTime: '18:30', weeks: 4, durationMinutes: 60, seats: 8, priceMinor: 3000, bookingCutoffMinutes: 60 },
+]

@@ -34,3 +34,13 @@ export async function requireRole(event: H3Event, ...roles: Role[]): Promise<Cur
 export function sessionUserOf(row: { id: number, name: string, email: string, role: Role }): CurrentUser {
   return { id: row.id, name: row.name, email: row.email, role: row.role }
 }
+
+/** The signed-in user if any (public routes that show staff more); never throws. */
+export async function optionalUser(event: H3Event): Promise<CurrentUser | null> {
+  const session = await getUserSession(event)
+  if (!session.user?.id) return null
+  try { return await requireUser(event) }
+  catch { return null }
+}
+
+export const isStaffRole = (role: Role | undefined | null) => role === 'manager' || role === 'host' || role === 'marketing'

@@ -1,7 +1,8 @@
 import { resolve } from 'node:path'
 import { migrate } from 'drizzle-orm/mysql2/migrator'
 import { count, eq } from 'drizzle-orm'
-import { DEMO_LAB, DEMO_PASSWORD, DEMO_PRODUCTS, DEMO_USERS, DEMO_VENUE } from '../demo/data'
+import { DateTime } from 'luxon'
+import { DEFAULT_GLASSES, DEMO_FLIGHTS, DEMO_LAB, DEMO_PASSWORD, DEMO_PRODUCTS, DEMO_SESSION_SERIES, DEMO_USERS, DEMO_VENUE } from '../demo/data'
 
 /** Default venue for a fresh production database; the manager edits it in the venue settings. */
 const DEFAULT_VENUE = {
@@ -36,7 +37,10 @@ async function prepare(): Promise<void> {
   const [{ venues } = { venues: 0 }] = await db.select({ venues: count() }).from(tables.venues)
   if (venues === 0) {
     if (config.demoSeed) await seedDemo()
-    else await db.insert(tables.venues).values(DEFAULT_VENUE)
+    else {
+      const [venue] = await db.insert(tables.venues).values(DEFAULT_VENUE).$returningId()
+      await db.insert(tables.glasses).values(DEFAULT_GLASSES.map(g => ({ ...g, venueId: venue!.id })))
+    }
   }
   await bootstrapManager()
   console.log(`[larmoir] database ready in ${Date.now() - started} ms`)
@@ -46,16 +50,37 @@ async function seedDemo(): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD)
   await useDb().transaction(async (tx) => {
     const [venue] = await tx.insert(tables.venues).values(DEMO_VENUE).$returningId()
-    if (!venue) throw new Error('demo venue insert failed')
+    const venueId = venue!.id
     await tx.insert(tables.users).values(DEMO_USERS.map(u => ({ ...u, passwordHash })))
+    const productIds = new Map<string, number>()
     for (const p of DEMO_PRODUCTS) {
       const { abvPctVol, residualSugarGL, ...product } = p
-      const [row] = await tx.insert(tables.products).values({ ...product, venueId: venue.id }).$returningId()
-      if (!row) throw new Error('demo product insert failed')
-      await tx.insert(tables.productMeasurements).values({ productId: row.id, abvPctVol, residualSugarGL, ...DEMO_LAB, measuredOn: '2026-09-15' })
+      const [row] = await tx.insert(tables.products).values({ ...product, venueId }).$returningId()
+      productIds.set(p.code, row!.id)
+      await tx.insert(tables.productMeasurements).values({ productId: row!.id, abvPctVol, residualSugarGL, ...DEMO_LAB, measuredOn: '2026-09-15' })
+    }
+    await tx.insert(tables.glasses).values(DEFAULT_GLASSES.map(g => ({ ...g, venueId })))
+    const glassIds = new Map((await tx.select().from(tables.glasses)).map(g => [g.name, g.id]))
+    const [host] = await tx.select().from(tables.users).where(eq(tables.users.role, 'host')).limit(1)
+    for (const f of DEMO_FLIGHTS) {
+      const [row] = await tx.insert(tables.flights).values({ venueId, name: f.name, summary: f.summary, status: f.publish ? 'published' : 'draft', publishedAt: f.publish ? new Date() : null }).$returningId()
+      const flightId = row!.id
+      await tx.update(tables.flights).set({ lineageId: flightId }).where(eq(tables.flights.id, flightId))
+      await writePours(tx, flightId, f.pours.map(p => ({ productId: productIds.get(p.code)!, glassId: glassIds.get(p.glass)!, volumeMl: p.volumeMl, servingTempC: p.servingTempC })))
+      if (!f.publish) continue
+      for (const series of DEMO_SESSION_SERIES) {
+        const today = DateTime.now().setZone(DEMO_VENUE.timeZone)
+        const first = today.plus({ days: ((series.weekday - today.weekday + 7) % 7) || 7 })
+        const starts = weeklyStartsUtc({ startDate: first.toISODate()!, startTime: series.startTime, weeks: series.weeks, timeZone: DEMO_VENUE.timeZone })
+        const seriesId = crypto.randomUUID()
+        await tx.insert(tables.tastingSessions).values(starts.map(startsAt => ({
+          venueId, flightId, startsAt, seriesId, hostId: host?.id ?? null, currency: DEMO_VENUE.currency,
+          durationMinutes: series.durationMinutes, seats: series.seats, priceMinor: series.priceMinor, bookingCutoffMinutes: series.bookingCutoffMinutes,
+        })))
+      }
     }
   })
-  console.log(`[larmoir] demo data loaded: ${DEMO_USERS.length} people, ${DEMO_PRODUCTS.length} products`)
+  console.log(`[larmoir] demo data loaded: ${DEMO_USERS.length} people, ${DEMO_PRODUCTS.length} products, ${DEMO_FLIGHTS.length} flights`)
 }
 
 /**

@@ -1,0 +1,10 @@
+import { computeFilm, describePour } from '../../science'
+import { filmQuerySchema } from '../../../shared/schemas/science'
+
+/** Every intermediate quantity of the glass model for one pour, each with its unit in its name. */
+export default defineEventHandler(async (event) => {
+  const q = await readQueryAs(event, filmQuerySchema)
+  const film = computeFilm({ abvPctVol: q.abv, tempC: q.tempC, sugarGL: q.sugarGL, wallAngleDeg: q.wallAngleDeg })
+  setResponseHeader(event, 'cache-control', 'public, max-age=3600')
+  return { ...film, description: describePour(film) }
+})

@@ -1,0 +1,28 @@
+import { mysqlTable, int, varchar, mysqlEnum, char, index } from 'drizzle-orm/mysql-core'
+import { timestamps, utcDatetime } from './common'
+import { venues } from './venues'
+import { flights } from './flights'
+import { users } from './users'
+import { SESSION_STATUSES } from '../../../shared/sessions'
+
+/** A paid, seated sitting of one flight. Start is a UTC instant; pages show it in the venue's zone. */
+export const tastingSessions = mysqlTable('tasting_sessions', {
+  id: int('id').autoincrement().primaryKey(),
+  venueId: int('venue_id').notNull().references(() => venues.id, { onDelete: 'cascade' }),
+  flightId: int('flight_id').notNull().references(() => flights.id, { onDelete: 'restrict' }),
+  startsAt: utcDatetime('starts_at').notNull(),
+  durationMinutes: int('duration_minutes').notNull(),
+  seats: int('seats').notNull(),
+  /** Integer minor units of `currency`, per guest. */
+  priceMinor: int('price_minor').notNull(),
+  currency: char('currency', { length: 3 }).notNull(),
+  hostId: int('host_id').references(() => users.id, { onDelete: 'set null' }),
+  /** Bookings close this many minutes before the start. */
+  bookingCutoffMinutes: int('booking_cutoff_minutes').notNull().default(60),
+  status: mysqlEnum('status', SESSION_STATUSES).notNull().default('open'),
+  /** Sessions created together as a recurring series share this id. */
+  seriesId: varchar('series_id', { length: 36 }),
+  ...timestamps,
+}, t => [index('sessions_venue_start_idx').on(t.venueId, t.startsAt), index('sessions_flight_idx').on(t.flightId), index('sessions_series_idx').on(t.seriesId)])
+
+export type TastingSession = typeof tastingSessions.$inferSelect

@@ -1,0 +1,74 @@
+import { and, desc, eq, inArray } from 'drizzle-orm'
+import type { Product, ProductMeasurement } from '../db/schema/products'
+import type { Venue } from '../db/schema/venues'
+import type { Role } from '../../shared/roles'
+import { DEFAULT_TASTING_POUR_ML } from '../../shared/pours'
+
+export interface ProductWithMeasurement extends Product { current: ProductMeasurement }
+
+/**
+ * Products of the venue with their current (newest) measurement, in one query pair (no N+1).
+ * `ids` limits the set; a product without any measurement cannot exist (created with one).
+ */
+export async function loadProducts(venueId: number, opts: { ids?: number[], history?: boolean } = {}): Promise<(ProductWithMeasurement & { history?: ProductMeasurement[] })[]> {
+  const db = useDb()
+  if (opts.ids && opts.ids.length === 0) return []
+  const rows = await db.select().from(tables.products)
+    .where(opts.ids ? and(eq(tables.products.venueId, venueId), inArray(tables.products.id, opts.ids)) : eq(tables.products.venueId, venueId))
+  if (!rows.length) return []
+  const measurements = await db.select().from(tables.productMeasurements)
+    .where(inArray(tables.productMeasurements.productId, rows.map(r => r.id)))
+    .orderBy(desc(tables.productMeasurements.measuredOn), desc(tables.productMeasurements.id))
+  const byProduct = new Map<number, ProductMeasurement[]>()
+  for (const m of measurements) {
+    const list = byProduct.get(m.productId) ?? []
+    list.push(m)
+    byProduct.set(m.productId, list)
+  }
+  return rows.flatMap((p) => {
+    const list = byProduct.get(p.id)
+    if (!list?.[0]) return []
+    return [{ ...p, current: list[0], ...(opts.history ? { history: list } : {}) }]
+  })
+}
+
+export async function loadProduct(venueId: number, id: number, history = false) {
+  const [p] = await loadProducts(venueId, { ids: [id], history })
+  if (!p) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such product.' })
+  return p
+}
+
+/**
+ * The API's view of a product: its fields, its current measurement and what the glass model
+ * derives from them for a default tasting pour at the product's serving temperature. The cost is
+ * shown to managers only.
+ */
+export function productView(p: ProductWithMeasurement & { history?: ProductMeasurement[] }, venue: Venue, role: Role) {
+  const pourMl = DEFAULT_TASTING_POUR_ML[p.kind]
+  const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: p.servingTempC, volumeMl: pourMl }, venue)
+  const strip = (m: ProductMeasurement) => ({ id: m.id, abvPctVol: m.abvPctVol, residualSugarGL: m.residualSugarGL, lab: m.lab, method: m.method, measuredOn: m.measuredOn, notes: m.notes, recordedAt: m.createdAt })
+  return {
+    id: p.id,
+    code: p.code,
+    kind: p.kind,
+    name: p.name,
+    producer: p.producer,
+    vintageOrBatch: p.vintageOrBatch,
+    servingTempC: p.servingTempC,
+    allergens: p.allergens,
+    bottleSizeMl: p.bottleSizeMl,
+    costPerBottleMinor: role === 'manager' ? p.costPerBottleMinor : null,
+    status: p.status,
+    updatedAt: p.updatedAt,
+    current: strip(p.current),
+    history: p.history?.map(strip),
+    derived: {
+      tastingPourMl: pourMl,
+      ethanolGramsPerPour: facts.ethanolGrams,
+      standardDrinksPerPour: facts.standardDrinks,
+      filmActivityIndex: facts.filmActivityIndex,
+      tearsExpected: facts.film.predictions.tearsExpected,
+    },
+  }
+}
+export type ProductView = ReturnType<typeof productView>

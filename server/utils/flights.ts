@@ -1,0 +1,131 @@
+import { and, asc, count, eq, inArray } from 'drizzle-orm'
+import type { Venue } from '../db/schema/venues'
+import type { Flight, Glass } from '../db/schema/flights'
+import type { PourInput } from '../../shared/schemas/flights'
+import { flightTotals } from '../science'
+
+export interface PourSpec { productId: number, volumeMl: number, glassId: number, servingTempC: number, note?: string | null }
+
+/**
+ * Computes every pour of a flight (saved or being edited) with the glass model, and the flight's
+ * totals against the venue's per-guest limit. Unknown products or glasses are a 400 on the pour.
+ */
+async function loadPourContext(venue: Venue, specs: PourSpec[]) {
+  const products = new Map((await loadProducts(venue.id, { ids: [...new Set(specs.map(s => s.productId))] })).map(p => [p.id, p]))
+  const glassIds = [...new Set(specs.map(s => s.glassId))]
+  const glassRows = glassIds.length
+    ? await useDb().select().from(tables.glasses).where(and(eq(tables.glasses.venueId, venue.id), inArray(tables.glasses.id, glassIds)))
+    : []
+  return { products, glasses: new Map(glassRows.map(g => [g.id, g])) }
+}
+type PourContext = Awaited<ReturnType<typeof loadPourContext>>
+
+function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]) {
+  const fields: Record<string, string> = {}
+  specs.forEach((s, i) => {
+    if (!ctx.products.has(s.productId)) fields[`pours.${i}.productId`] = 'No such product.'
+    if (!ctx.glasses.has(s.glassId)) fields[`pours.${i}.glassId`] = 'No such glass.'
+  })
+  if (Object.keys(fields).length) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: Object.values(fields).join(' '), data: { fields } })
+
+  const pours = specs.map((s, i) => {
+    const p = ctx.products.get(s.productId)!
+    const g = ctx.glasses.get(s.glassId)!
+    const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: s.servingTempC, volumeMl: s.volumeMl, wallAngleDeg: g.wallAngleDeg }, venue)
+    return {
+      position: i + 1,
+      productId: p.id,
+      product: { code: p.code, name: p.name, kind: p.kind, producer: p.producer, vintageOrBatch: p.vintageOrBatch, allergens: p.allergens, status: p.status },
+      abvPctVol: p.current.abvPctVol,
+      residualSugarGL: p.current.residualSugarGL,
+      measuredOn: p.current.measuredOn,
+      volumeMl: s.volumeMl,
+      servingTempC: s.servingTempC,
+      note: s.note ?? null,
+      glass: glassView(g),
+      ethanolGrams: facts.ethanolGrams,
+      standardDrinks: facts.standardDrinks,
+      filmActivityIndex: facts.filmActivityIndex,
+      film: facts.film,
+    }
+  })
+  const totals = flightTotals(pours.map(p => ({ volumeMl: p.volumeMl, abvPctVol: p.abvPctVol })), venue.standardDrinkGrams)
+  return {
+    pours,
+    totals: {
+      volumeMl: totals.volumeMl,
+      ethanolGrams: totals.ethanolGrams,
+      standardDrinks: totals.standardDrinks,
+      limitGrams: venue.guestEthanolLimitGrams,
+      overLimit: totals.ethanolGrams > venue.guestEthanolLimitGrams,
+    },
+  }
+}
+
+/**
+ * Computes every pour of a flight (saved or being edited) with the glass model, and the flight's
+ * totals against the venue's per-guest limit. Unknown products or glasses are a 400 on the pour.
+ */
+export async function computePours(venue: Venue, specs: PourSpec[]) {
+  return computeWith(venue, await loadPourContext(venue, specs), specs)
+}
+
+export const glassView = (g: Glass) => ({ id: g.id, name: g.name, bowlDiameterMm: g.bowlDiameterMm, wallAngleDeg: g.wallAngleDeg, fillHeightMm: g.fillHeightMm })
+
+/** A flight in the venue, or 404. Guests and anonymous visitors see published flights only. */
+export async function loadFlight(venue: Venue, id: number, opts: { publishedOnly?: boolean } = {}): Promise<Flight> {
+  const [flight] = await useDb().select().from(tables.flights).where(and(eq(tables.flights.id, id), eq(tables.flights.venueId, venue.id)))
+  if (!flight || (opts.publishedOnly && flight.status !== 'published')) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such flight.' })
+  return flight
+}
+
+/** Full views of several flights in a fixed number of queries (pours, products, glasses, sessions). */
+export async function flightViews(venue: Venue, flights: Flight[]) {
+  if (!flights.length) return []
+  const db = useDb()
+  const ids = flights.map(f => f.id)
+  const specs = await db.select().from(tables.flightPours).where(inArray(tables.flightPours.flightId, ids)).orderBy(asc(tables.flightPours.flightId), asc(tables.flightPours.position))
+  const sessionCounts = new Map((await db.select({ flightId: tables.tastingSessions.flightId, n: count() }).from(tables.tastingSessions)
+    .where(inArray(tables.tastingSessions.flightId, ids)).groupBy(tables.tastingSessions.flightId)).map(r => [r.flightId, r.n]))
+  const ctx = await loadPourContext(venue, specs)
+  return flights.map((flight) => {
+    const n = sessionCounts.get(flight.id) ?? 0
+    return {
+      id: flight.id,
+      lineageId: flight.lineageId ?? flight.id,
+      version: flight.version,
+      name: flight.name,
+      summary: flight.summary,
+      status: flight.status,
+      publishedAt: flight.publishedAt,
+      updatedAt: flight.updatedAt,
+      sessionCount: n,
+      /** Published or retired with sessions: its pours are fixed; a change needs a new version. */
+      locked: flight.status !== 'draft' && n > 0,
+      ...computeWith(venue, ctx, specs.filter(s => s.flightId === flight.id)),
+    }
+  })
+}
+
+export async function flightView(venue: Venue, flight: Flight) {
+  return (await flightViews(venue, [flight]))[0]!
+}
+export type FlightView = Awaited<ReturnType<typeof flightView>>
+
+/** Replaces a draft's pours in the caller's transaction. */
+export async function writePours(tx: Tx, flightId: number, pours: PourInput[]) {
+  await tx.delete(tables.flightPours).where(eq(tables.flightPours.flightId, flightId))
+  await tx.insert(tables.flightPours).values(pours.map((p, i) => ({ ...p, note: p.note ?? null, flightId, position: i + 1 })))
+}
+
+/** Locks the flight row and refuses pour changes once it is published and scheduled. */
+export async function lockFlightForEdit(tx: Tx, venueId: number, id: number) {
+  const [flight] = await tx.select().from(tables.flights).where(and(eq(tables.flights.id, id), eq(tables.flights.venueId, venueId))).for('update')
+  if (!flight) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such flight.' })
+  return flight
+}
+
+export async function flightSessionCount(tx: Tx, flightId: number): Promise<number> {
+  const [{ n } = { n: 0 }] = await tx.select({ n: count() }).from(tables.tastingSessions).where(eq(tables.tastingSessions.flightId, flightId))
+  return n
+}

@@ -1,0 +1,45 @@
+import { z } from 'zod'
+import { ALLERGENS, PRODUCT_KINDS, PRODUCT_STATUSES } from '../products'
+import { ABV_RANGE_PCT_VOL, SUGAR_RANGE_G_L, TEMP_RANGE_C } from '../../server/science/ranges'
+import { isoDateField } from './common'
+
+const num = (label: string, min: number, max: number, unit: string) =>
+  z.number({ error: `Enter ${label} as a number.` }).refine(Number.isFinite, { error: `Enter ${label} as a number.` })
+    .min(min, { error: `${cap(label)} must be between ${min} and ${max} ${unit}.` })
+    .max(max, { error: `${cap(label)} must be between ${min} and ${max} ${unit}.` })
+const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1)
+
+export const productCodeField = z.string({ error: 'Enter a product code.' }).trim()
+  .min(1, { error: 'Enter a product code.' }).max(40, { error: 'Use at most 40 characters for the code.' })
+  .regex(/^[\w.-]+$/, { error: 'Use letters, digits, dots, dashes or underscores in the code.' })
+
+/** One lab measurement: ABV at 20 °C as reported, residual sugar, who measured it, how and when. */
+export const measurementSchema = z.object({
+  abvPctVol: num('ABV', ABV_RANGE_PCT_VOL.min, ABV_RANGE_PCT_VOL.max, '% vol'),
+  residualSugarGL: num('residual sugar', SUGAR_RANGE_G_L.min, SUGAR_RANGE_G_L.max, 'g/L'),
+  lab: z.string({ error: 'Name the lab.' }).trim().min(1, { error: 'Name the lab.' }).max(160, { error: 'Use at most 160 characters.' }),
+  method: z.string({ error: 'Name the method.' }).trim().min(1, { error: 'Name the method.' }).max(160, { error: 'Use at most 160 characters.' }),
+  measuredOn: isoDateField.refine(s => s <= new Date().toISOString().slice(0, 10), { error: 'The measurement date cannot be in the future.' }),
+  notes: z.string().trim().max(2000, { error: 'Use at most 2000 characters.' }).nullish(),
+})
+export type MeasurementInput = z.input<typeof measurementSchema>
+
+export const productFieldsSchema = z.object({
+  code: productCodeField,
+  kind: z.enum(PRODUCT_KINDS, { error: `Choose a kind: ${PRODUCT_KINDS.join(', ')}.` }),
+  name: z.string({ error: 'Enter the name.' }).trim().min(1, { error: 'Enter the name.' }).max(160, { error: 'Use at most 160 characters.' }),
+  producer: z.string({ error: 'Enter the producer.' }).trim().min(1, { error: 'Enter the producer.' }).max(160, { error: 'Use at most 160 characters.' }),
+  vintageOrBatch: z.string().trim().max(40, { error: 'Use at most 40 characters.' }).nullish().transform(v => v || null),
+  servingTempC: num('the serving temperature', TEMP_RANGE_C.min, TEMP_RANGE_C.max, '°C'),
+  allergens: z.array(z.enum(ALLERGENS, { error: `Allergens must be among: ${ALLERGENS.join(', ')}.` }), { error: 'List the allergens.' })
+    .max(ALLERGENS.length).transform(a => [...new Set(a)]),
+  bottleSizeMl: z.number({ error: 'Enter the bottle size in mL.' }).int({ error: 'Use whole millilitres.' }).min(50, { error: 'The bottle size must be between 50 and 20000 mL.' }).max(20000, { error: 'The bottle size must be between 50 and 20000 mL.' }),
+  costPerBottleMinor: z.number({ error: 'Enter the cost.' }).int({ error: 'The cost is in minor units (whole cents).' }).min(0, { error: 'The cost cannot be negative.' }).max(100_000_00, { error: 'That cost is too large.' }),
+  status: z.enum(PRODUCT_STATUSES, { error: 'Choose active or retired.' }).default('active'),
+})
+
+/** A new product arrives with its first measurement. */
+export const productCreateSchema = productFieldsSchema.extend({ measurement: measurementSchema })
+export type ProductCreateInput = z.input<typeof productCreateSchema>
+
+export const productPatchSchema = productFieldsSchema.partial().refine(v => Object.keys(v).length > 0, { error: 'Change at least one field.' })
