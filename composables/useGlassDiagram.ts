@@ -48,8 +48,9 @@ export function glassDiagramGeometry(glass: GlassShape, p: DiagramPrediction) {
   for (let y = bottomY; y >= fillY; y -= 1) liquidRight.push(`${xAt(y, 1).toFixed(2)},${y.toFixed(2)}`)
   const liquidPath = `M${liquidLeft.join(' L')} L${liquidRight.join(' L')} Z`
 
-  const stroke = Math.max(0.6, glass.bowlDiameterMm / 90)
-  const film = 1.2 * stroke
+  const stroke = Math.max(1.2, glass.bowlDiameterMm / 55)
+  // The film is a few tens of micrometres thick; it is drawn a few millimetres wide to be seen.
+  const film = Math.max(2.2, glass.bowlDiameterMm / 28)
   let bandShapes = null
   const tears: { x: number, y: number, rx: number, ry: number }[] = []
   if (band > 0) {
@@ -65,8 +66,10 @@ export function glassDiagramGeometry(glass: GlassShape, p: DiagramPrediction) {
       const count = Math.max(1, Math.min(4, Math.floor(band / (3 * w))))
       for (let i = 0; i < count; i++) {
         const y = topY + (i + 0.7) * (band / (count + 0.5))
-        tears.push({ x: xAt(y, -1) + film * 1.2, y, rx: Math.min(w / 2, 2.5), ry: Math.min(w, 4) })
-        tears.push({ x: xAt(y, 1) - film * 1.2, y: y + band / (count * 2.5), rx: Math.min(w / 2, 2.5), ry: Math.min(w, 4) })
+        const rx = Math.max(1.6, Math.min(w * 0.6, 3))
+        const ry = Math.max(2.6, Math.min(w * 1.1, 5))
+        tears.push({ x: xAt(y, -1) + film * 0.9, y, rx, ry })
+        tears.push({ x: xAt(y, 1) - film * 0.9, y: y + band / (count * 2.5), rx, ry })
       }
     }
   }

@@ -16,6 +16,9 @@ export function useStaff() {
   const message = ref('')
   const error = ref('')
 
+  // Plain string URLs: the typed route inference of $fetch is too deep for these templates.
+  const send = (url: string, options: { method: 'PATCH' | 'POST', body?: Record<string, unknown> }) => $fetch(url, options)
+
   async function run(action: () => Promise<unknown>, done: string) {
     message.value = ''
     error.value = ''
@@ -33,8 +36,8 @@ export function useStaff() {
     ...list,
     message,
     error,
-    setRole: (m: StaffMember, role: StaffRole) => run(() => $fetch(`/api/staff/${m.id}`, { method: 'PATCH', body: { role } }), `${m.name} is now ${role}.`),
-    setDisabled: (m: StaffMember, disabled: boolean) => run(() => $fetch(`/api/staff/${m.id}`, { method: 'PATCH', body: { disabled } }), disabled ? `${m.name} can no longer sign in.` : `${m.name} can sign in again.`),
-    resendInvitation: (m: StaffMember) => run(() => $fetch(`/api/staff/${m.id}/invitation`, { method: 'POST' }), `A new invitation is on its way to ${m.email}.`),
+    setRole: (m: StaffMember, role: StaffRole) => run(() => send(`/api/staff/${m.id}`, { method: 'PATCH', body: { role } }), `${m.name} is now ${role}.`),
+    setDisabled: (m: StaffMember, disabled: boolean) => run(() => send(`/api/staff/${m.id}`, { method: 'PATCH', body: { disabled } }), disabled ? `${m.name} can no longer sign in.` : `${m.name} can sign in again.`),
+    resendInvitation: (m: StaffMember) => run(() => send(`/api/staff/${m.id}/invitation`, { method: 'POST' }), `A new invitation is on its way to ${m.email}.`),
   }
 }

@@ -11,6 +11,8 @@ export const useAccountStore = defineStore('account', () => {
   /** Where each role starts after signing in. */
   function homeFor(r: Role | null): string {
     if (r === 'manager') return '/manage'
+    if (r === 'host') return '/manage/sessions'
+    if (r === 'marketing') return '/manage/products'
     return '/account'
   }
 

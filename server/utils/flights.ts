@@ -115,7 +115,9 @@ export type FlightView = Awaited<ReturnType<typeof flightView>>
 /** Replaces a draft's pours in the caller's transaction. */
 export async function writePours(tx: Tx, flightId: number, pours: PourInput[]) {
   await tx.delete(tables.flightPours).where(eq(tables.flightPours.flightId, flightId))
-  await tx.insert(tables.flightPours).values(pours.map((p, i) => ({ ...p, note: p.note ?? null, flightId, position: i + 1 })))
+  await tx.insert(tables.flightPours).values(pours.map((p, i) => ({
+    flightId, position: i + 1, productId: p.productId, volumeMl: p.volumeMl, glassId: p.glassId, servingTempC: p.servingTempC, note: p.note ?? null,
+  })))
 }
 
 /** Locks the flight row and refuses pour changes once it is published and scheduled. */

@@ -8,7 +8,8 @@ function queryNumber(label: string, unit: string, range: { min: number, max: num
   return z.string({ error: `${label} is required (${range.min}–${range.max} ${unit}).` })
     .trim()
     .min(1, { error: `${label} is required (${range.min}–${range.max} ${unit}).` })
-    .pipe(z.coerce.number({ error: message }).refine(Number.isFinite, { error: message }).refine(v => v >= range.min && v <= range.max, { error: message }))
+    .transform(Number)
+    .pipe(z.number({ error: message }).refine(Number.isFinite, { error: message }).refine(v => v >= range.min && v <= range.max, { error: message }))
 }
 
 const optional = <T extends z.ZodType>(schema: T, fallback: string) => z.preprocess(v => (v === undefined || v === '' ? fallback : v), schema)

@@ -19,6 +19,8 @@ export async function openBrowser(viewport = { width: 1280, height: 900 }): Prom
     viewport,
     baseURL: inject('appUrl'),
   })
+  // Fail a step within seconds, with the locator in the message, rather than at the test's timeout.
+  context.setDefaultTimeout(10_000)
   return {
     context,
     close: async () => {

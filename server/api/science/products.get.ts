@@ -1,0 +1,27 @@
+import { computeFilm, describePour, DEFAULT_WALL_ANGLE_DEG } from '../../science'
+
+/**
+ * The venue's active products as the glass model sees them at their serving temperature, for the
+ * public page that explains the effect. Only what a label or a menu shows is public.
+ */
+export default defineEventHandler(async () => {
+  const venue = await getVenue()
+  const products = (await loadProducts(venue.id)).filter(p => p.status === 'active')
+  return products.map((p) => {
+    const film = computeFilm({ abvPctVol: p.current.abvPctVol, tempC: p.servingTempC, sugarGL: p.current.residualSugarGL, wallAngleDeg: DEFAULT_WALL_ANGLE_DEG })
+    return {
+      id: p.id,
+      name: p.name,
+      kind: p.kind,
+      producer: p.producer,
+      vintageOrBatch: p.vintageOrBatch,
+      abvPctVol: p.current.abvPctVol,
+      residualSugarGL: p.current.residualSugarGL,
+      servingTempC: p.servingTempC,
+      filmActivityIndex: film.filmActivityIndex,
+      predictions: film.predictions,
+      viscosity_mPa_s: film.viscosity_mPa_s,
+      description: describePour(film, { temperatureUnit: venue.temperatureUnit === 'f' ? 'F' : 'C' }),
+    }
+  }).sort((a, b) => a.abvPctVol - b.abvPctVol)
+})

@@ -1,0 +1,77 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { BrowserContext } from 'playwright-core'
+import { openBrowser, shot, signInThroughForm } from '../support/browser'
+import { DEMO_PASSWORD } from '../../server/demo/data'
+
+describe('the flight builder and the public glass page', () => {
+  let context: BrowserContext
+  let close: () => Promise<void>
+  beforeAll(async () => ({ context, close } = await openBrowser({ width: 1366, height: 1024 })))
+  afterAll(async () => close())
+
+  it('a manager builds a flight: adds pours, sees live figures, reorders by keyboard, saves and publishes', async () => {
+    const page = await context.newPage()
+    await signInThroughForm(page, 'manager@saltmarsh.test', DEMO_PASSWORD)
+    await page.waitForURL('**/manage')
+    await page.goto('/manage/flights/new')
+    await page.getByLabel('Flight name').fill('Browser-built flight')
+    const add = page.getByLabel('Add a pour')
+    for (const name of ['Tidewater Albariño', 'Orchard Gate Dry Cider', 'Marsh Samphire Gin']) {
+      await add.selectOption({ label: (await add.locator('option', { hasText: name }).innerText()).trim() })
+      await page.getByRole('button', { name: 'Add', exact: true }).click()
+    }
+    await page.getByText('Per guest').waitFor()
+    await page.getByText('Standard drinks (14 g)').waitFor()
+    const firstTitle = page.locator('ol > li h3').first()
+    expect(await firstTitle.innerText()).toContain('Tidewater')
+    await page.getByRole('button', { name: 'Move pour 2 up' }).focus()
+    await page.keyboard.press('Enter')
+    await expect.poll(() => firstTitle.innerText()).toContain('Orchard Gate')
+    await page.waitForTimeout(500)
+    await shot(page, 'flight-builder-new')
+    await page.getByRole('button', { name: 'Save draft' }).click()
+    await page.waitForURL(/\/manage\/flights\/\d+$/)
+    await page.getByText('Saved.').waitFor()
+    await page.getByRole('button', { name: 'Publish' }).click()
+    await page.getByText('Published: guests can now see').waitFor()
+    await shot(page, 'flight-builder-published')
+    await page.goto('/manage/flights')
+    await page.getByText('Browser-built flight').waitFor()
+    await shot(page, 'flights-table')
+    await page.goto('/manage/sessions')
+    await page.getByText('Schedule sessions').waitFor()
+    await shot(page, 'sessions')
+    await page.close()
+  })
+
+  it('over the per-guest limit, the builder warns', async () => {
+    const page = await context.newPage()
+    await page.goto('/manage/flights/new')
+    const add = page.getByLabel('Add a pour')
+    for (const name of ['Marsh Samphire Gin', 'Low Tide Fortified Red']) {
+      await add.selectOption({ label: (await add.locator('option', { hasText: name }).innerText()).trim() })
+      await page.getByRole('button', { name: 'Add', exact: true }).click()
+    }
+    await page.getByLabel('Pour (fl oz)').first().fill('6')
+    await page.getByLabel('Pour (fl oz)').first().press('Tab')
+    await page.getByText('over the venue\'s limit').waitFor()
+    await shot(page, 'flight-builder-over-limit')
+    await page.close()
+  })
+
+  it('the public page explains the effect with the venue\'s own products, on a phone too', async () => {
+    const page = await context.newPage()
+    await page.goto('/glass')
+    await page.getByText('Our bottles, glass by glass').waitFor()
+    expect(await page.getByText('Tears say nothing about quality').count()).toBeGreaterThanOrEqual(6)
+    await page.locator('canvas').first().waitFor()
+    await shot(page, 'glass-page')
+    await page.close()
+    const phone = await openBrowser({ width: 390, height: 844 })
+    const p2 = await phone.context.newPage()
+    await p2.goto('/glass')
+    await p2.locator('canvas').first().waitFor()
+    await shot(p2, 'glass-page-phone')
+    await phone.close()
+  })
+})
