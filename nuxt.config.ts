@@ -36,6 +36,10 @@ export default defineNuxtConfig({
     },
     public: { appName: 'Larmoir' },
   },
+  nitro: {
+    // The Lora files the card PDFs embed, bundled with the server (pdfkit reads .woff, not .woff2).
+    serverAssets: [{ baseName: 'fonts', dir: '../node_modules/@fontsource/lora/files', pattern: 'lora-latin-{400,600}-{normal,italic}.woff' }],
+  },
   image: { quality: 80 },
   vite: { server: { hmr: { host: '127.0.0.1' } } },
 })

@@ -66,8 +66,8 @@ export function glassDiagramGeometry(glass: GlassShape, p: DiagramPrediction) {
       const count = Math.max(1, Math.min(4, Math.floor(band / (3 * w))))
       for (let i = 0; i < count; i++) {
         const y = topY + (i + 0.7) * (band / (count + 0.5))
-        const rx = Math.max(1.6, Math.min(w * 0.6, 3))
-        const ry = Math.max(2.6, Math.min(w * 1.1, 5))
+        const rx = Math.max(2.2, Math.min(w * 0.7, 3.2))
+        const ry = Math.max(3.4, Math.min(w * 1.3, 5.5))
         tears.push({ x: xAt(y, -1) + film * 0.9, y, rx, ry })
         tears.push({ x: xAt(y, 1) - film * 0.9, y: y + band / (count * 2.5), rx, ry })
       }
