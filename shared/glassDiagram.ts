@@ -83,7 +83,7 @@ export function glassDiagramGeometry(glass: GlassShape, p: DiagramPrediction) {
     stroke,
     fillY,
     labelX: cx + r + 3,
-    font: Math.max(3.2, glass.bowlDiameterMm / 18),
+    font: Math.max(4.5, glass.bowlDiameterMm / 12),
     description(label: string) {
       if (!p.tearsExpected && band <= 0) return `${label}: in the ${glass.name.toLowerCase()}, no climbing film or tears are expected.`
       if (!p.tearsExpected) return `${label}: in the ${glass.name.toLowerCase()}, a faint film a few millimetres high may form, with no distinct tears.`

@@ -79,7 +79,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       lookFor,
       tastingNote: p.tastingNote ?? null,
       allergens: p.product.allergens.map(a => ALLERGEN_LABELS[a]),
-      pourUrl: `${opts.publicUrl.replace(/\/flights\/\d+$/, '')}/pour/${flight.id}/${p.position}`,
+      pourUrl: `${opts.publicUrl}/${p.position}`,
     }
   })
   return {

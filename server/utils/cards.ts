@@ -25,5 +25,5 @@ export function cardFonts(): Promise<CardFonts> {
 /** The card of one flight as staff print it; guest names and session come from the caller. */
 export async function flightCard(venue: Venue, flightId: number, extra: { guestName?: string | null, sessionLabel?: string | null } = {}): Promise<FlightCard> {
   const view = await flightView(venue, await loadFlight(venue, flightId))
-  return buildFlightCard({ venue, flight: view, publicUrl: appLink(`/flights/${flightId}`), ...extra })
+  return buildFlightCard({ venue, flight: view, publicUrl: appLink(`/pour/${flightId}`), ...extra })
 }

@@ -14,6 +14,7 @@ declare module 'vitest' {
 /** Starts a fresh test database, the e-mail fake and the built server; stops them afterwards. */
 export default async function setup(project: TestProject) {
   ensureDebianPackage('/usr/bin/chromium', ['chromium'], 'the browser tests')
+  ensureDebianPackage('/usr/bin/pdftotext', ['poppler-utils'], 'reading the card PDFs in tests')
   const started = Date.now()
   const stack = await startStack(TEST_PROFILE, { freshDatabase: true })
   console.log(`[tests] MariaDB, e-mail fake and app up in ${Date.now() - started} ms`)

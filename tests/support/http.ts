@@ -36,6 +36,13 @@ export class Client {
     return { status: res.status, body: parsed as T, headers: res.headers }
   }
 
+  /** A GET whose body is binary (PDF, CSV): the raw Response, with this client's cookies. */
+  async raw(path: string): Promise<Response> {
+    return fetch(`${inject('appUrl')}${path}`, {
+      headers: { 'x-forwarded-for': this.ip, ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } : {}) },
+    })
+  }
+
   get = <T = any>(path: string) => this.request<T>('GET', path)
   post = <T = any>(path: string, body?: unknown, headers?: Record<string, string>) => this.request<T>('POST', path, body ?? {}, headers)
   patch = <T = any>(path: string, body?: unknown) => this.request<T>('PATCH', path, body ?? {})

@@ -1,0 +1,21 @@
+import { execFileSync } from 'node:child_process'
+import { mkdtempSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { resolve } from 'node:path'
+import { SHOTS_DIR } from './browser'
+
+/** Reads a PDF with poppler's tools: page count and size, fonts, text, and a PNG of a page. */
+export function inspectPdf(bytes: Buffer, pngName?: string) {
+  const dir = mkdtempSync(resolve(tmpdir(), 'larmoir-pdf-'))
+  const file = resolve(dir, 'card.pdf')
+  writeFileSync(file, bytes)
+  const info = execFileSync('pdfinfo', [file], { encoding: 'utf8' })
+  const pages = Number(info.match(/^Pages:\s+(\d+)/m)?.[1])
+  const size = info.match(/^Page size:\s+([\d.]+) x ([\d.]+) pts/m)
+  const fonts = execFileSync('pdffonts', [file], { encoding: 'utf8' }).split('\n').slice(2).filter(Boolean)
+    .map(l => ({ name: l.split(/\s+/)[0]!, embedded: / yes +yes /.test(l) || /\byes\b/.test(l.slice(60, 70)) }))
+  const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' })
+  const pageText = (n: number) => execFileSync('pdftotext', ['-f', String(n), '-l', String(n), file, '-'], { encoding: 'utf8' })
+  if (pngName) execFileSync('pdftoppm', ['-png', '-r', '110', '-f', '1', '-l', '1', '-singlefile', file, resolve(SHOTS_DIR, pngName)])
+  return { pages, width: Number(size?.[1]), height: Number(size?.[2]), fonts, text, pageText }
+}
