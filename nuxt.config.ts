@@ -30,6 +30,8 @@ export default defineNuxtConfig({
     throttle: { accountMax: 5, ipMax: 30, windowMinutes: 15, lockMinutes: 15 },
     tokens: { inviteHours: 72, resetMinutes: 60 },
     outboxIntervalSeconds: 15,
+    /** Where uploaded images live: outside the code tree, git-ignored; relative to the working directory. */
+    uploadDir: '.data/uploads',
     session: {
       maxAge: 60 * 60 * 12,
       cookie: { sameSite: 'lax', httpOnly: true, secure: false },
@@ -38,8 +40,18 @@ export default defineNuxtConfig({
   },
   nitro: {
     // The Lora files the card PDFs embed, bundled with the server (pdfkit reads .woff, not .woff2).
-    serverAssets: [{ baseName: 'fonts', dir: '../node_modules/@fontsource/lora/files', pattern: 'lora-latin-{400,600}-{normal,italic}.woff' }],
+    serverAssets: [
+      { baseName: 'fonts', dir: '../node_modules/@fontsource/lora/files', pattern: 'lora-latin-{400,600}-{normal,italic}.woff' },
+      // The default articles; an edited copy lives in the database, the file stays the default.
+      { baseName: 'articles', dir: '../content/articles' },
+    ],
   },
-  image: { quality: 80 },
+  image: {
+    quality: 80,
+    format: ['webp'],
+    provider: 'larmoir',
+    providers: { larmoir: { provider: '~/providers/larmoir.ts' } },
+    screens: { sm: 390, md: 768, lg: 1024, card: 600 },
+  },
   vite: { server: { hmr: { host: '127.0.0.1' } } },
 })

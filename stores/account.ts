@@ -12,7 +12,7 @@ export const useAccountStore = defineStore('account', () => {
   function homeFor(r: Role | null): string {
     if (r === 'manager') return '/manage'
     if (r === 'host') return '/manage/sessions'
-    if (r === 'marketing') return '/manage/products'
+    if (r === 'marketing') return '/manage/content'
     return '/account'
   }
 

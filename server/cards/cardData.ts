@@ -32,7 +32,8 @@ export interface CardPourInput {
   standardDrinks: number
   filmActivityIndex: number
   film: FilmResult
-  tastingNote?: string | null
+  /** The product's published tasting note. */
+  tastingNote?: { html: string, text: string } | null
 }
 
 export interface CardFlightInput {
@@ -42,6 +43,7 @@ export interface CardFlightInput {
   summary: string
   pours: CardPourInput[]
   totals: { ethanolGrams: number, standardDrinks: number, volumeMl: number }
+  intro?: { html: string, text: string } | null
 }
 
 export const ALLERGEN_LABELS: Record<Allergen, string> = {
@@ -77,7 +79,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       glass: p.glass,
       prediction: p.film.predictions,
       lookFor,
-      tastingNote: p.tastingNote ?? null,
+      tastingNote: p.tastingNote?.text ?? null,
       allergens: p.product.allergens.map(a => ALLERGEN_LABELS[a]),
       pourUrl: `${opts.publicUrl}/${p.position}`,
     }

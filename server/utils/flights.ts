@@ -16,7 +16,9 @@ async function loadPourContext(venue: Venue, specs: PourSpec[]) {
   const glassRows = glassIds.length
     ? await useDb().select().from(tables.glasses).where(and(eq(tables.glasses.venueId, venue.id), inArray(tables.glasses.id, glassIds)))
     : []
-  return { products, glasses: new Map(glassRows.map(g => [g.id, g])) }
+  const notes = await publishedNotes(venue.id, 'product_note', [...products.keys()])
+  const photos = await productPhotos(venue.id, [...products.keys()])
+  return { products, glasses: new Map(glassRows.map(g => [g.id, g])), notes, photos }
 }
 type PourContext = Awaited<ReturnType<typeof loadPourContext>>
 
@@ -47,6 +49,9 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]) {
       standardDrinks: facts.standardDrinks,
       filmActivityIndex: facts.filmActivityIndex,
       film: facts.film,
+      /** The product's published tasting note (drafts never reach guests or cards). */
+      tastingNote: ctx.notes.get(p.id) ?? null,
+      photo: ctx.photos.get(p.id) ?? null,
     }
   })
   const totals = flightTotals(pours.map(p => ({ volumeMl: p.volumeMl, abvPctVol: p.abvPctVol })), venue.standardDrinkGrams)
@@ -88,6 +93,7 @@ export async function flightViews(venue: Venue, flights: Flight[]) {
   const sessionCounts = new Map((await db.select({ flightId: tables.tastingSessions.flightId, n: count() }).from(tables.tastingSessions)
     .where(inArray(tables.tastingSessions.flightId, ids)).groupBy(tables.tastingSessions.flightId)).map(r => [r.flightId, r.n]))
   const ctx = await loadPourContext(venue, specs)
+  const intros = await publishedNotes(venue.id, 'flight_intro', ids)
   return flights.map((flight) => {
     const n = sessionCounts.get(flight.id) ?? 0
     return {
@@ -96,6 +102,8 @@ export async function flightViews(venue: Venue, flights: Flight[]) {
       version: flight.version,
       name: flight.name,
       summary: flight.summary,
+      /** Marketing's published introduction, as HTML and plain text. */
+      intro: intros.get(flight.id) ?? null,
       status: flight.status,
       publishedAt: flight.publishedAt,
       updatedAt: flight.updatedAt,

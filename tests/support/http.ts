@@ -11,17 +11,17 @@ export class Client {
   private cookies = new Map<string, string>()
   constructor(readonly ip = `10.${rnd()}.${rnd()}.${rnd()}`) {}
 
-  async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Reply<T>> {
+  async request<T = any>(method: string, path: string, body?: unknown | FormData, headers: Record<string, string> = {}): Promise<Reply<T>> {
     const res = await fetch(`${inject('appUrl')}${path}`, {
       method,
       redirect: 'manual',
       headers: {
         'x-forwarded-for': this.ip,
-        ...(body !== undefined && typeof body !== 'string' ? { 'content-type': 'application/json' } : {}),
+        ...(body !== undefined && typeof body !== 'string' && !(body instanceof FormData) ? { 'content-type': 'application/json' } : {}),
         ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } : {}),
         ...headers,
       },
-      body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
+      body: body === undefined ? undefined : typeof body === 'string' || body instanceof FormData ? body : JSON.stringify(body),
     })
     for (const c of res.headers.getSetCookie()) {
       const [pair = ''] = c.split(';')
