@@ -11,7 +11,8 @@ export class Client {
   private cookies = new Map<string, string>()
   constructor(readonly ip = `10.${rnd()}.${rnd()}.${rnd()}`) {}
 
-  async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Reply<T>> {
+  /** Sends a request with this person's cookies and returns the response unread (for streams). */
+  async send(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Response> {
     const res = await fetch(`${inject('appUrl')}${path}`, {
       method,
       redirect: 'manual',
@@ -29,6 +30,11 @@ export class Client {
       if (/max-age=0|expires=Thu, 01 Jan 1970/i.test(c)) this.cookies.delete(name)
       else this.cookies.set(name, value.join('='))
     }
+    return res
+  }
+
+  async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Reply<T>> {
+    const res = await this.send(method, path, body, headers)
     const text = await res.text()
     let parsed: unknown = text
     try { parsed = JSON.parse(text) }
