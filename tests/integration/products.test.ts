@@ -55,7 +55,7 @@ describe('products', () => {
     expect(p.derived.ethanolGramsPerPour).toBeCloseTo(grams, 6)
     expect(p.derived.ethanolGramsPerPour).toBeCloseTo(5.92, 2) // 60 mL of 12.5 % vol: 7.5 mL of ethanol ≈ 5.9 g (OIML R 22 density)
     expect(standardDrinkGrams).toBe(14) // US standard drink: 14 g of ethanol (NIAAA)
-    expect(p.derived.standardDrinksPerPour).toBeCloseTo(grams / 14, 6)
+    expect(p.derived.standardDrinksPerPour).toBeCloseTo(grams / 14, 6) // 14 g of ethanol per US standard drink (NIAAA)
     const film = computeFilm({ abvPctVol: 12.5, tempC: 10, sugarGL: 2 })
     expect(p.derived.filmActivityIndex).toBeCloseTo(film.filmActivityIndex, 9)
     expect(p.derived.filmActivityIndex).toBeGreaterThan(0)
