@@ -33,7 +33,8 @@ function toKind(s: string | undefined): ProductKind | string | undefined {
 function toMinor(s: string | undefined, digits: number): number | undefined {
   if (s === undefined || s.trim() === '') return undefined
   const t = s.trim()
-  if (!new RegExp(`^\\d+(\\.\\d{1,${Math.max(digits, 0)}})?$`).test(t)) return Number.NaN
+  const pattern = digits > 0 ? new RegExp(`^\\d+(\\.\\d{1,${digits}})?$`) : /^\d+$/
+  if (!pattern.test(t)) return Number.NaN
   return Math.round(Number(t) * 10 ** digits)
 }
 
@@ -63,11 +64,14 @@ function measurementInput(r: Record<string, string>) {
   }
 }
 
-function messagesByColumn(error: z.ZodError): Record<string, string> {
+function messagesByColumn(error: z.ZodError, r: Record<string, string>, digits = 2): Record<string, string> {
   const out: Record<string, string> = {}
   for (const [path, message] of Object.entries(fieldErrorsFromZod(error))) {
     const column = COLUMN_OF[path] ?? COLUMN_OF[path.replace(/\.\d+$/, '')] ?? path
-    if (column === 'kind') out[column] = `Unknown kind. Use one of: ${PRODUCT_KINDS.join(', ')}.`
+    if (column === 'kind') out[column] = r.kind ? `Unknown kind "${r.kind}". Use one of: ${PRODUCT_KINDS.join(', ')}.` : `Enter the kind: ${PRODUCT_KINDS.join(', ')}.`
+    else if (column === 'cost_per_bottle' && r.cost_per_bottle && Number.isNaN(toMinor(r.cost_per_bottle, digits))) {
+      out[column] = digits > 0 ? `Enter the cost as a plain number with at most ${digits} decimals, like 14.50.` : 'Enter the cost as a whole number.'
+    }
     else if (column === 'allergens') out[column] = `Unknown allergen. Use: ${ALLERGENS.join(', ')} (separate with ;).`
     else out[column] ??= message
   }
@@ -80,87 +84,138 @@ export interface CheckedSheet {
   valid: Map<number, { code: string, product?: z.output<typeof productCreateSchema>, measurement?: z.output<typeof measurementSchema> }>
 }
 
+interface SheetRecord { line: number, row: Record<string, string>, problem?: string }
+
 /**
- * Parses a lab sheet with papaparse and checks every row: required columns, values and ranges
- * (the same zod schemas as the product forms), unknown kinds, codes repeated in the sheet, codes
- * already on the list (new products) or missing from it (new measurements). Writes nothing.
+ * Parses the CSV row by row and keeps, for each row, the line of the file it starts on, so that
+ * blank rows left in a spreadsheet and quoted values spanning lines do not shift the line numbers
+ * the preview shows. In step mode papaparse's cursor is the offset just past each row; a row starts
+ * where the previous one ended, past any blank lines (which `skipEmptyLines: 'greedy'` drops).
  */
-export async function checkLabSheet(csv: string, sheet: LabSheetKind, venue: { id: number, currency: string }, onProgress?: (done: number, total: number) => Promise<void> | void): Promise<CheckedSheet> {
-  const spec = LAB_SHEETS[sheet]
-  const parsed = Papa.parse<Record<string, string>>(csv.replace(/^\uFEFF/, ''), {
+function parseSheet(csv: string): { columns: string[], records: SheetRecord[] } {
+  const text = csv.replace(/^\uFEFF/, '')
+  // The header is the first line (a column name never spans lines); rows start on line 2.
+  const firstBreak = text.indexOf('\n')
+  let pos = firstBreak < 0 ? text.length : firstBreak + 1
+  let line = 2
+  let columns: string[] = []
+  const records: SheetRecord[] = []
+  const advance = (to: number) => {
+    line += countNewlines(text, pos, to)
+    pos = to
+  }
+  Papa.parse<Record<string, string>>(text, {
     header: true,
     skipEmptyLines: 'greedy',
     transformHeader: h => h.trim().toLowerCase(),
     transform: v => v.trim(),
+    step: (result) => {
+      columns = result.meta.fields ?? columns
+      const end = result.meta.cursor
+      for (;;) {
+        const nl = text.indexOf('\n', pos)
+        if (nl < 0 || nl + 1 >= end || !BLANK_LINE.test(text.slice(pos, nl))) break
+        advance(nl + 1)
+      }
+      const problem = result.errors.map(e => e.message).join('; ') || undefined
+      records.push({ line, row: result.data, problem })
+      advance(end)
+    },
   })
-  const columns = parsed.meta.fields ?? []
+  return { columns, records }
+}
+const BLANK_LINE = /^[\s,;|]*$/
+
+function countNewlines(text: string, from: number, to: number): number {
+  let n = 0
+  for (let i = text.indexOf('\n', from); i >= 0 && i < to; i = text.indexOf('\n', i + 1)) n++
+  return n
+}
+
+/** Adds messages for columns that have none yet: "this column is missing" beats "enter a value". */
+function keepFirst(errors: Record<string, string>, more: Record<string, string>) {
+  for (const [column, message] of Object.entries(more)) errors[column] ??= message
+}
+
+const finite = (n: number | undefined) => (n !== undefined && Number.isFinite(n) ? n : undefined)
+
+/**
+ * Parses a lab sheet with papaparse and checks every row: required columns, values and ranges
+ * (the same zod schemas as the product forms), unknown kinds, codes repeated in the sheet, codes
+ * already on the list (new products) or missing from it (new measurements), and measurements
+ * already on record (same product, date and lab). Writes nothing.
+ */
+export async function checkLabSheet(csv: string, sheet: LabSheetKind, venue: { id: number, currency: string }, onProgress?: (done: number, total: number) => Promise<void> | void): Promise<CheckedSheet> {
+  const spec = LAB_SHEETS[sheet]
+  const { columns, records } = parseSheet(csv)
+  if (records.length > LAB_SHEET_MAX_ROWS) {
+    throw createError({ statusCode: 400, statusMessage: 'Sheet too long', message: `A sheet may hold at most ${LAB_SHEET_MAX_ROWS} rows; split this one.` })
+  }
   const missingColumns = spec.required.filter(c => !columns.includes(c))
   const known = new Set<string>([...spec.required, ...spec.optional])
   const unknownColumns = columns.filter(c => !known.has(c))
-  const data = parsed.data.slice(0, LAB_SHEET_MAX_ROWS)
   const digits = new Intl.NumberFormat('en', { style: 'currency', currency: venue.currency }).resolvedOptions().maximumFractionDigits ?? 2
 
-  const existing = new Map((await useDb().select({ id: tables.products.id, code: tables.products.code }).from(tables.products)
-    .where(eq(tables.products.venueId, venue.id))).map(r => [r.code.toLowerCase(), r.id]))
+  const db = useDb()
+  const existing = new Map((await db.select({ id: tables.products.id, code: tables.products.code, name: tables.products.name, kind: tables.products.kind }).from(tables.products)
+    .where(eq(tables.products.venueId, venue.id))).map(r => [r.code.toLowerCase(), r]))
+  const measurementKey = (code: string, measuredOn: string, lab: string) => `${code.toLowerCase()}|${measuredOn}|${lab.trim().toLowerCase()}`
+  const recorded = new Set<string>()
+  if (sheet === 'measurements') {
+    const rows = await db.select({ code: tables.products.code, measuredOn: tables.productMeasurements.measuredOn, lab: tables.productMeasurements.lab })
+      .from(tables.productMeasurements).innerJoin(tables.products, eq(tables.products.id, tables.productMeasurements.productId))
+      .where(eq(tables.products.venueId, venue.id))
+    for (const r of rows) recorded.add(measurementKey(r.code, r.measuredOn, r.lab))
+  }
   const seen = new Map<string, number>()
   const rows: LabSheetRow[] = []
   const valid: CheckedSheet['valid'] = new Map()
-  const rowErrorsByLine = new Map<number, string>()
-  for (const e of parsed.errors) if (e.row !== undefined) rowErrorsByLine.set(e.row + 2, e.message)
 
-  for (let i = 0; i < data.length; i++) {
-    const r = data[i]!
-    const line = i + 2
+  for (let i = 0; i < records.length; i++) {
+    const { line, row: r, problem } = records[i]!
     const code = (r.code ?? '').trim()
     const errors: Record<string, string> = {}
     for (const c of missingColumns) errors[c] = 'This column is missing from the sheet.'
-    const parseError = rowErrorsByLine.get(line)
-    if (parseError) errors._ = `CSV problem: ${parseError}.`
+    if (problem) errors._ = `CSV problem: ${problem}.`
 
-    const summary: LabSheetRow['summary'] = {}
+    const summary: LabSheetRow['summary'] = {
+      abvPctVol: finite(toNumber(r.abv_pct_vol)),
+      residualSugarGL: finite(toNumber(r.residual_sugar_g_l)),
+      measuredOn: r.measured_on || undefined,
+    }
     if (sheet === 'products') {
+      summary.name = r.name || undefined
+      summary.kind = r.kind ? toKind(r.kind) : undefined
       const result = productCreateSchema.safeParse(productInput(r, digits))
-      if (!result.success) Object.assign(errors, messagesByColumn(result.error), errors)
-      else {
-        summary.name = result.data.name
-        summary.kind = result.data.kind
-        summary.abvPctVol = result.data.measurement.abvPctVol
-        summary.residualSugarGL = result.data.measurement.residualSugarGL
-        summary.measuredOn = result.data.measurement.measuredOn
-        if (existing.has(code.toLowerCase())) errors.code ??= 'A product with this code is already on the list. Import its new numbers as a measurement sheet.'
-        if (!Object.keys(errors).length) valid.set(line, { code, product: result.data })
-      }
+      if (!result.success) keepFirst(errors, messagesByColumn(result.error, r, digits))
       const firstLine = seen.get(code.toLowerCase())
       if (code && firstLine) errors.code = `Duplicate code: line ${firstLine} has it too.`
+      else if (code && existing.has(code.toLowerCase())) errors.code ??= 'A product with this code is already on the list. Import its new numbers as a measurement sheet.'
+      if (code && !firstLine) seen.set(code.toLowerCase(), line)
+      if (result.success && !Object.keys(errors).length) valid.set(line, { code, product: result.data })
     }
     else {
+      const product = existing.get(code.toLowerCase())
+      summary.name = product?.name
+      summary.kind = product?.kind
       const result = measurementSchema.safeParse(measurementInput(r))
-      if (!result.success) Object.assign(errors, messagesByColumn(result.error), errors)
+      if (!result.success) keepFirst(errors, messagesByColumn(result.error, r))
       if (!code) errors.code = 'Enter the product code.'
-      else if (!existing.has(code.toLowerCase())) errors.code = 'No product on the list has this code.'
-      const key = `${code.toLowerCase()}|${r.measured_on ?? ''}|${r.lab ?? ''}`
+      else if (!product) errors.code = 'No product on the list has this code.'
+      const key = measurementKey(code, r.measured_on ?? '', r.lab ?? '')
       const firstLine = seen.get(key)
       if (firstLine) errors.code = `Duplicate measurement: line ${firstLine} has the same code, date and lab.`
-      else seen.set(key, line)
-      if (result.success) {
-        summary.abvPctVol = result.data.abvPctVol
-        summary.residualSugarGL = result.data.residualSugarGL
-        summary.measuredOn = result.data.measuredOn
-        if (!Object.keys(errors).length) valid.set(line, { code, measurement: result.data })
-      }
+      else if (product && recorded.has(key)) errors.measured_on ??= 'This product already has a measurement from this lab on this date.'
+      if (!firstLine) seen.set(key, line)
+      if (result.success && !Object.keys(errors).length) valid.set(line, { code, measurement: result.data })
     }
-    if (sheet === 'products' && code && !seen.has(code.toLowerCase())) seen.set(code.toLowerCase(), line)
-    if (Object.keys(errors).length) valid.delete(line)
     rows.push({ line, code, errors, summary })
     if ((i + 1) % BATCH === 0 && onProgress) {
-      await onProgress(i + 1, data.length)
+      await onProgress(i + 1, records.length)
       await new Promise(r => setImmediate(r))
     }
   }
-  await onProgress?.(data.length, data.length)
-  if (parsed.data.length > LAB_SHEET_MAX_ROWS) {
-    throw createError({ statusCode: 400, statusMessage: 'Sheet too long', message: `A sheet may hold at most ${LAB_SHEET_MAX_ROWS} rows; split this one.` })
-  }
+  await onProgress?.(records.length, records.length)
   return { check: { sheet, missingColumns, unknownColumns, rows, validCount: valid.size }, valid }
 }
 
@@ -193,6 +248,9 @@ export async function commitLabSheet(checked: CheckedSheet, lines: number[], ven
     for (let i = 0; i < measurements.length; i += 500) {
       await tx.insert(tables.productMeasurements).values(measurements.slice(i, i + 500))
     }
+  }).catch((err) => {
+    if (!isDuplicateKey(err)) throw err
+    throw createError({ statusCode: 409, statusMessage: 'Duplicate code', message: 'Another import added some of these codes a moment ago. Check the sheet again.' })
   })
   return chosen.length
 }

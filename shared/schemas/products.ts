@@ -13,18 +13,25 @@ export const productCodeField = z.string({ error: 'Enter a product code.' }).tri
   .min(1, { error: 'Enter a product code.' }).max(40, { error: 'Use at most 40 characters for the code.' })
   .regex(/^[\w.-]+$/, { error: 'Use letters, digits, dots, dashes or underscores in the code.' })
 
+/**
+ * Today's date where the day is furthest along (UTC+14), so that "today" in the venue's own zone is
+ * never taken for the future, wherever the venue is.
+ */
+const EARLIEST_ZONE_OFFSET_MS = 14 * 60 * 60 * 1000
+const latestTodayIso = () => new Date(Date.now() + EARLIEST_ZONE_OFFSET_MS).toISOString().slice(0, 10)
+
 /** One lab measurement: ABV at 20 °C as reported, residual sugar, who measured it, how and when. */
 export const measurementSchema = z.object({
   abvPctVol: num('ABV', ABV_RANGE_PCT_VOL.min, ABV_RANGE_PCT_VOL.max, '% vol'),
   residualSugarGL: num('residual sugar', SUGAR_RANGE_G_L.min, SUGAR_RANGE_G_L.max, 'g/L'),
   lab: z.string({ error: 'Name the lab.' }).trim().min(1, { error: 'Name the lab.' }).max(160, { error: 'Use at most 160 characters.' }),
   method: z.string({ error: 'Name the method.' }).trim().min(1, { error: 'Name the method.' }).max(160, { error: 'Use at most 160 characters.' }),
-  measuredOn: isoDateField.refine(s => s <= new Date().toISOString().slice(0, 10), { error: 'The measurement date cannot be in the future.' }),
+  measuredOn: isoDateField.refine(s => s <= latestTodayIso(), { error: 'The measurement date cannot be in the future.' }),
   notes: z.string().trim().max(2000, { error: 'Use at most 2000 characters.' }).nullish(),
 })
 export type MeasurementInput = z.input<typeof measurementSchema>
 
-export const productFieldsSchema = z.object({
+const productFields = {
   code: productCodeField,
   kind: z.enum(PRODUCT_KINDS, { error: `Choose a kind: ${PRODUCT_KINDS.join(', ')}.` }),
   name: z.string({ error: 'Enter the name.' }).trim().min(1, { error: 'Enter the name.' }).max(160, { error: 'Use at most 160 characters.' }),
@@ -35,11 +42,18 @@ export const productFieldsSchema = z.object({
     .max(ALLERGENS.length).transform(a => [...new Set(a)]),
   bottleSizeMl: z.number({ error: 'Enter the bottle size in mL.' }).int({ error: 'Use whole millilitres.' }).min(50, { error: 'The bottle size must be between 50 and 20000 mL.' }).max(20000, { error: 'The bottle size must be between 50 and 20000 mL.' }),
   costPerBottleMinor: z.number({ error: 'Enter the cost.' }).int({ error: 'The cost is in minor units (whole cents).' }).min(0, { error: 'The cost cannot be negative.' }).max(100_000_00, { error: 'That cost is too large.' }),
-  status: z.enum(PRODUCT_STATUSES, { error: 'Choose active or retired.' }).default('active'),
-})
+  status: z.enum(PRODUCT_STATUSES, { error: 'Choose active or retired.' }),
+}
+
+/** A product's descriptive fields; a new product is active unless it says otherwise. */
+export const productFieldsSchema = z.object({ ...productFields, status: productFields.status.default('active') })
 
 /** A new product arrives with its first measurement. */
 export const productCreateSchema = productFieldsSchema.extend({ measurement: measurementSchema })
 export type ProductCreateInput = z.input<typeof productCreateSchema>
 
-export const productPatchSchema = productFieldsSchema.partial().refine(v => Object.keys(v).length > 0, { error: 'Change at least one field.' })
+/**
+ * A change to some of the fields. Built without the status default: zod 4 applies defaults inside
+ * optional fields, which would quietly bring a retired product back on every edit.
+ */
+export const productPatchSchema = z.object(productFields).partial().refine(v => Object.keys(v).length > 0, { error: 'Change at least one field.' })

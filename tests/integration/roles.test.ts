@@ -27,6 +27,11 @@ describe('role guards', () => {
     ['POST', '/api/staff', { name: 'N', email: 'n@example.test', role: 'host' }],
     ['PATCH', '/api/staff/2', { role: 'host' }],
     ['PATCH', '/api/venue', {}],
+    ['POST', '/api/products', {}],
+    ['PATCH', '/api/products/1', { name: 'N' }],
+    ['POST', '/api/products/1/measurements', {}],
+    ['POST', '/api/imports/preview', { sheet: 'products', csv: 'code\nX' }],
+    ['POST', '/api/imports/commit', { sheet: 'products', csv: 'code\nX', lines: [2] }],
   ]
 
   it.each(staffRoutes)('%s %s: anonymous 401, guest/host/marketing 403', async (method, path, body) => {

@@ -11,17 +11,19 @@ export class Client {
   private cookies = new Map<string, string>()
   constructor(readonly ip = `10.${rnd()}.${rnd()}.${rnd()}`) {}
 
-  async request<T = any>(method: string, path: string, body?: unknown | FormData, headers: Record<string, string> = {}): Promise<Reply<T>> {
+  /** Sends a request with this person's cookies and returns the response unread (streams, PDFs, images). */
+  async send(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Response> {
+    const raw = body === undefined || typeof body === 'string' || body instanceof FormData
     const res = await fetch(`${inject('appUrl')}${path}`, {
       method,
       redirect: 'manual',
       headers: {
         'x-forwarded-for': this.ip,
-        ...(body !== undefined && typeof body !== 'string' && !(body instanceof FormData) ? { 'content-type': 'application/json' } : {}),
+        ...(raw ? {} : { 'content-type': 'application/json' }),
         ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } : {}),
         ...headers,
       },
-      body: body === undefined ? undefined : typeof body === 'string' || body instanceof FormData ? body : JSON.stringify(body),
+      body: body === undefined ? undefined : raw ? body as string | FormData : JSON.stringify(body),
     })
     for (const c of res.headers.getSetCookie()) {
       const [pair = ''] = c.split(';')
@@ -29,6 +31,11 @@ export class Client {
       if (/max-age=0|expires=Thu, 01 Jan 1970/i.test(c)) this.cookies.delete(name)
       else this.cookies.set(name, value.join('='))
     }
+    return res
+  }
+
+  async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Reply<T>> {
+    const res = await this.send(method, path, body, headers)
     const text = await res.text()
     let parsed: unknown = text
     try { parsed = JSON.parse(text) }
@@ -36,13 +43,8 @@ export class Client {
     return { status: res.status, body: parsed as T, headers: res.headers }
   }
 
-  /** A GET whose body is binary (PDF, CSV): the raw Response, with this client's cookies. */
-  async raw(path: string): Promise<Response> {
-    return fetch(`${inject('appUrl')}${path}`, {
-      headers: { 'x-forwarded-for': this.ip, ...(this.cookies.size ? { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') } : {}) },
-    })
-  }
-
+  /** A GET whose body is binary (PDF, CSV, images): the raw Response. */
+  raw = (path: string) => this.send('GET', path)
   get = <T = any>(path: string) => this.request<T>('GET', path)
   post = <T = any>(path: string, body?: unknown, headers?: Record<string, string>) => this.request<T>('POST', path, body ?? {}, headers)
   patch = <T = any>(path: string, body?: unknown) => this.request<T>('PATCH', path, body ?? {})

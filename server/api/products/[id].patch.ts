@@ -15,9 +15,11 @@ export default defineEventHandler(async (event) => {
     if (patch.code) {
       const [dup] = await tx.select({ id: tables.products.id }).from(tables.products)
         .where(and(eq(tables.products.venueId, venue.id), eq(tables.products.code, patch.code), ne(tables.products.id, id)))
-      if (dup) throw createError({ statusCode: 409, statusMessage: 'Duplicate code', message: `Another product already uses the code ${patch.code}.`, data: { fields: { code: 'Another product already uses this code.' } } })
+      if (dup) throw duplicateCodeError(patch.code)
     }
     await tx.update(tables.products).set(patch).where(eq(tables.products.id, id))
+  }).catch((err) => {
+    throw isDuplicateKey(err) && patch.code ? duplicateCodeError(patch.code) : err
   })
   return productView(await loadProduct(venue.id, id, true), venue, user.role)
 })

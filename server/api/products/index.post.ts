@@ -8,10 +8,12 @@ export default defineEventHandler(async (event) => {
   const id = await useDb().transaction(async (tx) => {
     const [dup] = await tx.select({ id: tables.products.id }).from(tables.products)
       .where(and(eq(tables.products.venueId, venue.id), eq(tables.products.code, fields.code))).for('update')
-    if (dup) throw createError({ statusCode: 409, statusMessage: 'Duplicate code', message: `Another product already uses the code ${fields.code}.`, data: { fields: { code: 'Another product already uses this code.' } } })
+    if (dup) throw duplicateCodeError(fields.code)
     const [row] = await tx.insert(tables.products).values({ ...fields, venueId: venue.id }).$returningId()
     await tx.insert(tables.productMeasurements).values({ ...measurement, notes: measurement.notes ?? null, productId: row!.id })
     return row!.id
+  }).catch((err) => {
+    throw isDuplicateKey(err) ? duplicateCodeError(fields.code) : err
   })
   setResponseStatus(event, 201)
   return productView(await loadProduct(venue.id, id, true), venue, user.role)

@@ -1,0 +1,137 @@
+import { z } from 'zod'
+import type { Allergen, ProductKind, ProductStatus } from '#shared/products'
+import { measurementSchema, productCreateSchema, productPatchSchema } from '#shared/schemas/products'
+import { fromDisplayTemp, toDisplayTemp } from '#shared/pours'
+import { TEMP_RANGE_C } from '~~/server/science/ranges'
+import type { Product } from './useProducts'
+
+// The transforms below hand the schema values it has yet to check (an empty box is undefined); the
+// casts only tell TypeScript so, and the piped schema refuses them with a message per field.
+
+/**
+ * What the product form holds: the serving temperature in the venue's unit and the cost in major
+ * units as typed. `productBody` turns it into the API's shape (°C, integer minor units), and the
+ * form schemas pipe that into the very schema the route parses, so field messages keep the API's
+ * field names (servingTempC, costPerBottleMinor) and the server's answers land on the same inputs.
+ */
+export interface ProductFormValues {
+  code: string
+  kind: ProductKind | ''
+  name: string
+  producer: string
+  vintageOrBatch: string
+  servingTemp: number | ''
+  allergens: Allergen[]
+  bottleSizeMl: number | ''
+  cost: string
+  status: ProductStatus
+}
+
+/** The measurement form: numbers stay '' until typed, so an empty box reads as "missing". */
+export interface MeasurementFormValues {
+  abvPctVol: number | ''
+  residualSugarGL: number | ''
+  lab: string
+  method: string
+  measuredOn: string
+  notes: string
+}
+
+export interface FormUnits { temperatureUnit: 'c' | 'f', currency: string }
+
+const numberOrNothing = (v: number | string | '') => (v === '' || v === null || v === undefined ? undefined : Number(v))
+
+/** "14.50" → 1450 (USD). More decimals than the currency has stay fractional, so zod refuses them. */
+export function costToMinor(cost: string, digits: number): number | undefined {
+  const t = String(cost ?? '').trim().replace(/^[^\d.-]+/, '')
+  if (t === '') return undefined
+  const n = Number(t)
+  if (!Number.isFinite(n)) return Number.NaN
+  const pattern = digits > 0 ? new RegExp(`^-?\\d*(\\.\\d{0,${digits}})?$`) : /^-?\d+$/
+  return pattern.test(t) ? Math.round(n * 10 ** digits) : n * 10 ** digits
+}
+
+export function minorToCost(minor: number, digits: number): string {
+  return (minor / 10 ** digits).toFixed(digits)
+}
+
+export function productBody(v: ProductFormValues, units: FormUnits) {
+  const temp = numberOrNothing(v.servingTemp)
+  return {
+    code: v.code,
+    kind: v.kind || undefined,
+    name: v.name,
+    producer: v.producer,
+    vintageOrBatch: v.vintageOrBatch,
+    servingTempC: temp === undefined ? undefined : fromDisplayTemp(temp, units.temperatureUnit),
+    allergens: v.allergens,
+    bottleSizeMl: numberOrNothing(v.bottleSizeMl),
+    costPerBottleMinor: costToMinor(v.cost, currencyMinorDigits(units.currency)),
+    status: v.status,
+  }
+}
+
+export function measurementBody(v: MeasurementFormValues) {
+  return {
+    abvPctVol: numberOrNothing(v.abvPctVol),
+    residualSugarGL: numberOrNothing(v.residualSugarGL),
+    lab: v.lab,
+    method: v.method,
+    measuredOn: v.measuredOn,
+    notes: v.notes || null,
+  }
+}
+
+export const productCreateForm = (units: FormUnits) => z.custom<ProductFormValues & { measurement: MeasurementFormValues }>()
+  .transform(v => ({ ...productBody(v, units), measurement: measurementBody(v.measurement) }) as z.input<typeof productCreateSchema>)
+  .pipe(productCreateSchema)
+
+export const productEditForm = (units: FormUnits) => z.custom<ProductFormValues>()
+  .transform(v => productBody(v, units) as z.input<typeof productPatchSchema>)
+  .pipe(productPatchSchema)
+
+export const measurementForm = z.custom<MeasurementFormValues>()
+  .transform(v => measurementBody(v) as z.input<typeof measurementSchema>)
+  .pipe(measurementSchema)
+
+/** The form's starting values: a blank product, or this product in the venue's units. */
+export function productFormValues(p: Product | null, units: FormUnits): ProductFormValues {
+  if (!p) {
+    return { code: '', kind: '', name: '', producer: '', vintageOrBatch: '', servingTemp: '', allergens: [], bottleSizeMl: 750, cost: '', status: 'active' }
+  }
+  return {
+    code: p.code,
+    kind: p.kind,
+    name: p.name,
+    producer: p.producer,
+    vintageOrBatch: p.vintageOrBatch ?? '',
+    servingTemp: Math.round(toDisplayTemp(p.servingTempC, units.temperatureUnit) * 10) / 10,
+    allergens: [...p.allergens],
+    bottleSizeMl: p.bottleSizeMl,
+    cost: p.costPerBottleMinor === null ? '' : minorToCost(p.costPerBottleMinor, currencyMinorDigits(units.currency)),
+    status: p.status,
+  }
+}
+
+/** Today in the venue's zone, as YYYY-MM-DD. */
+export function venueDateToday(timeZone: string): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date())
+}
+
+export function blankMeasurement(timeZone: string, from?: { lab: string, method: string }): MeasurementFormValues {
+  return { abvPctVol: '', residualSugarGL: '', lab: from?.lab ?? '', method: from?.method ?? '', measuredOn: venueDateToday(timeZone), notes: '' }
+}
+
+/** The schema speaks °C; a venue that reads °F gets the same range in °F. */
+export function temperatureMessage(message: string | undefined, unit: 'c' | 'f'): string | undefined {
+  if (!message || unit === 'c' || !/between/.test(message)) return message
+  const f = (c: number) => Math.round(toDisplayTemp(c, 'f'))
+  return `The serving temperature must be between ${f(TEMP_RANGE_C.min)} and ${f(TEMP_RANGE_C.max)} °F.`
+}
+
+/** The schema speaks minor units; the form asks for the price as printed on an invoice. */
+export function costMessage(message: string | undefined, currency: string): string | undefined {
+  if (!message || !/minor units/.test(message)) return message
+  const digits = currencyMinorDigits(currency)
+  return digits > 0 ? `Use at most ${digits} decimals, like ${(14.5).toFixed(digits)}.` : 'Use a whole number.'
+}

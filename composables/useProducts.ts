@@ -1,0 +1,79 @@
+import type { InternalApi } from 'nitropack/types'
+import type { MeasurementInput } from '#shared/schemas/products'
+import { formatVolume, toDisplayTemp } from '#shared/pours'
+
+/** A product as the API returns it: fields, current measurement, history, derived figures. */
+export type Product = InternalApi['/api/products/:id']['get']
+export type ProductMeasurement = Product['current']
+
+export const productsKey = 'products'
+export const productKey = (id: number) => `product-${id}`
+
+/** Fraction digits of a currency's minor unit: 2 for USD and EUR, 0 for JPY. */
+export function currencyMinorDigits(currency: string): number {
+  return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2
+}
+
+/** The venue's products, with their current numbers and derived figures. */
+export function useProductList() {
+  return useFetch<Product[]>('/api/products', { key: productsKey, default: () => [] })
+}
+
+/** One product with its measurement history, newest first. */
+export function useProduct(id: number) {
+  return useFetch<Product>(`/api/products/${id}`, { key: productKey(id) })
+}
+
+/**
+ * Writes to the catalogue. Each returns the product as the server now derives it and refreshes the
+ * list and the product page, so every figure on screen comes from the glass model again.
+ */
+export function useProductActions() {
+  async function refreshAfter(id: number) {
+    await refreshNuxtData([productsKey, productKey(id)])
+  }
+  return {
+    async create(body: unknown): Promise<Product> {
+      const product = await $fetch<Product>('/api/products', { method: 'POST', body: body as Record<string, unknown> })
+      await refreshNuxtData(productsKey)
+      return product
+    },
+    async save(id: number, patch: Record<string, unknown>): Promise<Product> {
+      const product = await $fetch<Product>(`/api/products/${id}`, { method: 'PATCH', body: patch })
+      await refreshAfter(id)
+      return product
+    },
+    async addMeasurement(id: number, body: MeasurementInput): Promise<Product> {
+      const product = await $fetch<Product>(`/api/products/${id}/measurements`, { method: 'POST', body })
+      await refreshAfter(id)
+      return product
+    },
+  }
+}
+
+/** Numbers as the venue reads them: its volume and temperature units, its currency. */
+export function useProductFormat() {
+  const { data: venue } = useVenue()
+  const { money, dateTime } = useVenueFormat()
+  const volumeUnit = computed(() => venue.value?.volumeUnit ?? 'ml')
+  const temperatureUnit = computed(() => venue.value?.temperatureUnit ?? 'c')
+  return {
+    volumeUnit,
+    temperatureUnit,
+    tempUnitLabel: computed(() => (temperatureUnit.value === 'f' ? '°F' : '°C')),
+    currency: computed(() => venue.value?.currency ?? 'USD'),
+    money,
+    dateTime,
+    /** Serving temperature as a number in the venue's unit, whole degrees. */
+    temp: (c: number) => String(Math.round(toDisplayTemp(c, temperatureUnit.value))),
+    tempWithUnit: (c: number) => `${Math.round(toDisplayTemp(c, temperatureUnit.value))} ${temperatureUnit.value === 'f' ? '°F' : '°C'}`,
+    volume: (ml: number) => formatVolume(ml, volumeUnit.value),
+    abv: (v: number) => v.toFixed(1),
+    sugar: (v: number) => (v < 10 ? v.toFixed(1) : v.toFixed(0)),
+    drinks: (v: number) => v.toFixed(2),
+    grams: (v: number) => v.toFixed(1),
+    index: (v: number) => v.toFixed(1),
+    /** A calendar date (YYYY-MM-DD) read as a date, not an instant, so no zone can shift it. */
+    day: (iso: string) => new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`)),
+  }
+}
