@@ -22,7 +22,24 @@ export interface PourFacts {
  * Derived on every read from the current numbers, never stored, so it cannot go stale.
  */
 export function pourFacts(p: PourNumbers, venue: Pick<Venue, 'standardDrinkGrams'>): PourFacts {
-  const film = computeFilm({ abvPctVol: p.abvPctVol, tempC: p.servingTempC, sugarGL: p.residualSugarGL, wallAngleDeg: p.wallAngleDeg })
+  const film = filmFor(p.abvPctVol, p.servingTempC, p.residualSugarGL, p.wallAngleDeg)
   const grams = ethanolGrams(p.volumeMl, p.abvPctVol)
   return { ethanolGrams: grams, standardDrinks: grams / venue.standardDrinkGrams, filmActivityIndex: film.filmActivityIndex, film }
+}
+
+/**
+ * computeFilm memoised by its inputs (a pure function, so a cached result can never go stale).
+ * Bounded: the oldest entries go first past FILM_CACHE_MAX.
+ */
+const FILM_CACHE_MAX = 20_000
+const filmCache = new Map<string, FilmResult>()
+function filmFor(abvPctVol: number, tempC: number, sugarGL: number, wallAngleDeg?: number): FilmResult {
+  const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}`
+  let film = filmCache.get(key)
+  if (!film) {
+    film = computeFilm({ abvPctVol, tempC, sugarGL, wallAngleDeg })
+    if (filmCache.size >= FILM_CACHE_MAX) filmCache.delete(filmCache.keys().next().value!)
+    filmCache.set(key, film)
+  }
+  return film
 }
