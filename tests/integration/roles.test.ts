@@ -27,6 +27,9 @@ describe('role guards', () => {
     ['POST', '/api/staff', { name: 'N', email: 'n@example.test', role: 'host' }],
     ['PATCH', '/api/staff/2', { role: 'host' }],
     ['PATCH', '/api/venue', {}],
+    ['GET', '/api/manage/bookings'],
+    ['GET', '/api/bookings/export.csv'],
+    ['POST', '/api/sessions/1/cancel'],
   ]
 
   it.each(staffRoutes)('%s %s: anonymous 401, guest/host/marketing 403', async (method, path, body) => {
