@@ -32,6 +32,16 @@ export default defineNuxtConfig({
     outboxIntervalSeconds: 15,
     /** Where uploaded images live: outside the code tree, git-ignored; relative to the working directory. */
     uploadDir: '.data/uploads',
+    // Payments through Stripe Checkout. Production sets only the two keys; the local fake also sets
+    // apiHost/apiPort/apiProtocol (NUXT_STRIPE_API_HOST, …) so the official SDK talks to it instead.
+    stripe: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '' },
+    booking: {
+      // Seats are held this long while the guest pays; the Checkout Session expires at the same moment
+      // (Stripe's shortest Checkout Session is 30 minutes, so a shorter hold is lengthened to 30 there).
+      holdMinutes: 30,
+      // How often expired holds are released, refunds retried and day-before reminders queued.
+      sweepSeconds: 30,
+    },
     session: {
       maxAge: 60 * 60 * 12,
       cookie: { sameSite: 'lax', httpOnly: true, secure: false },

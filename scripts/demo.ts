@@ -8,6 +8,8 @@ const url = `http://localhost:${DEMO_PROFILE.appPort}`
 console.log(`
 Larmoir is running at ${url}
   Outgoing e-mail (caught locally): ${stack.mailUrl}
+  Payments (local Stripe fake, test cards only): ${DEMO_PROFILE.stripePublicUrl}
+    pay with 4242 4242 4242 4242, any future expiry, any CVC; 4000 0000 0000 0002 is declined
   Database: MariaDB on 127.0.0.1:${DEMO_PROFILE.db.port} (data in .data/${DEMO_PROFILE.db.name})
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD})
@@ -20,7 +22,7 @@ let stopping = false
 async function shutdown() {
   if (stopping) return
   stopping = true
-  console.log('\nStopping the app, the e-mail fake and MariaDB…')
+  console.log('\nStopping the app, the e-mail and payment fakes and MariaDB…')
   await stack.stop()
   await stopDb(DEMO_PROFILE.db)
   process.exit(0)

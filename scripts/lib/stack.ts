@@ -2,11 +2,12 @@ import { mkdirSync } from 'node:fs'
 import { resolve } from 'node:path'
 import { DEV_DB, TEST_DB, databaseUrl, resetDatabase, startDb, type DbInstance } from './mariadb'
 import { startMailFake, type MailFake } from '../fakes/mail'
+import { startStripeFake, type StripeFake } from '../fakes/stripe'
 import { startApp, type RunningApp } from './app'
 
 /**
- * Everything the app needs on one machine: MariaDB, the e-mail fake and the built server, for the
- * demo (`npm start`) or for the tests (`npm test`), on separate ports and databases.
+ * Everything the app needs on one machine: MariaDB, the e-mail fake, the Stripe fake and the built
+ * server, for the demo (`npm start`) or for the tests (`npm test`), on separate ports and databases.
  */
 export interface StackProfile {
   name: 'demo' | 'test'
@@ -14,8 +15,18 @@ export interface StackProfile {
   appPort: number
   smtpPort: number
   mailHttpPort: number
+  stripePort: number
+  /** Address of the Stripe fake as the browser reaches it (its hosted payment page links). */
+  stripePublicUrl: string
   env: Record<string, string>
 }
+
+/**
+ * Test-mode keys for the local Stripe fake only (it accepts any sk_test_ key and signs webhooks
+ * with this secret). Production sets its own NUXT_STRIPE_SECRET_KEY and NUXT_STRIPE_WEBHOOK_SECRET.
+ */
+export const LOCAL_STRIPE_SECRET_KEY = 'sk_test_larmoir_local_fake'
+export const LOCAL_STRIPE_WEBHOOK_SECRET = 'whsec_larmoir_local_fake'
 
 export const DEMO_PROFILE: StackProfile = {
   name: 'demo',
@@ -23,6 +34,8 @@ export const DEMO_PROFILE: StackProfile = {
   appPort: 3000,
   smtpPort: 2525,
   mailHttpPort: 1080,
+  stripePort: 12111,
+  stripePublicUrl: 'http://localhost:12111',
   env: {
     NUXT_APP_URL: 'http://localhost:3000',
     NUXT_DEMO_SEED: 'true',
@@ -39,16 +52,19 @@ export const TEST_PROFILE: StackProfile = {
   appPort: 3100 + offset,
   smtpPort: 2526 + offset,
   mailHttpPort: 1081 + offset,
+  stripePort: 12112 + offset,
+  stripePublicUrl: `http://127.0.0.1:${12112 + offset}`,
   env: {
     NUXT_APP_URL: `http://127.0.0.1:${3100 + offset}`,
     NUXT_DEMO_SEED: 'true',
     NUXT_TRUST_PROXY: 'true',
     NUXT_OUTBOX_INTERVAL_SECONDS: '1',
+    NUXT_BOOKING_SWEEP_SECONDS: '1',
     NUXT_SESSION_PASSWORD: 'test-only-session-password-at-least-32-characters',
   },
 }
 
-export interface RunningStack { app: RunningApp, mail: MailFake, mailUrl: string, profile: StackProfile, stop: () => Promise<void> }
+export interface RunningStack { app: RunningApp, mail: MailFake, mailUrl: string, stripe: StripeFake, stripeUrl: string, profile: StackProfile, stop: () => Promise<void> }
 
 export async function startStack(profile: StackProfile, opts: { freshDatabase?: boolean } = {}): Promise<RunningStack> {
   const dataDir = resolve(import.meta.dirname, '../../.data')
@@ -56,6 +72,19 @@ export async function startStack(profile: StackProfile, opts: { freshDatabase?: 
   await startDb(profile.db)
   if (opts.freshDatabase) resetDatabase(profile.db)
   const mail = await startMailFake({ smtpPort: profile.smtpPort, httpPort: profile.mailHttpPort, dir: resolve(dataDir, `mail-${profile.name}`) })
+  let stripe: StripeFake
+  try {
+    stripe = await startStripeFake({
+      port: profile.stripePort,
+      webhookUrl: `http://127.0.0.1:${profile.appPort}/webhooks/stripe`,
+      webhookSecret: LOCAL_STRIPE_WEBHOOK_SECRET,
+      publicUrl: profile.stripePublicUrl,
+    })
+  }
+  catch (err) {
+    await mail.close()
+    throw err
+  }
   let app: RunningApp
   try {
     app = await startApp({
@@ -66,10 +95,16 @@ export async function startStack(profile: StackProfile, opts: { freshDatabase?: 
         NUXT_DATABASE_URL: databaseUrl(profile.db),
         NUXT_SMTP_HOST: '127.0.0.1',
         NUXT_SMTP_PORT: String(profile.smtpPort),
+        NUXT_STRIPE_SECRET_KEY: LOCAL_STRIPE_SECRET_KEY,
+        NUXT_STRIPE_WEBHOOK_SECRET: LOCAL_STRIPE_WEBHOOK_SECRET,
+        NUXT_STRIPE_API_HOST: '127.0.0.1',
+        NUXT_STRIPE_API_PORT: String(profile.stripePort),
+        NUXT_STRIPE_API_PROTOCOL: 'http',
       },
     })
   }
   catch (err) {
+    await stripe.close()
     await mail.close()
     throw err
   }
@@ -77,9 +112,12 @@ export async function startStack(profile: StackProfile, opts: { freshDatabase?: 
     app,
     mail,
     mailUrl: `http://127.0.0.1:${profile.mailHttpPort}`,
+    stripe,
+    stripeUrl: stripe.url,
     profile,
     stop: async () => {
       await app.stop()
+      await stripe.close()
       await mail.close()
     },
   }

@@ -79,6 +79,7 @@ async function seedDemo(): Promise<void> {
         })))
       }
     }
+    await seedDemoBookings(tx, venueId)
   })
   console.log(`[larmoir] demo data loaded: ${DEMO_USERS.length} people, ${DEMO_PRODUCTS.length} products, ${DEMO_FLIGHTS.length} flights`)
 }

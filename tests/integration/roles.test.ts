@@ -32,6 +32,9 @@ describe('role guards', () => {
     ['POST', '/api/products/1/measurements', {}],
     ['POST', '/api/imports/preview', { sheet: 'products', csv: 'code\nX' }],
     ['POST', '/api/imports/commit', { sheet: 'products', csv: 'code\nX', lines: [2] }],
+    ['GET', '/api/manage/bookings'],
+    ['GET', '/api/bookings/export.csv'],
+    ['POST', '/api/sessions/1/cancel'],
   ]
 
   it.each(staffRoutes)('%s %s: anonymous 401, guest/host/marketing 403', async (method, path, body) => {

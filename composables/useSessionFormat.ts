@@ -1,0 +1,39 @@
+/**
+ * Session times for guests, always in the venue's zone (named, so a visitor from elsewhere is not
+ * misled), and amounts in the venue's currency. Built on useVenueFormat's Intl formatting.
+ */
+export function useSessionFormat() {
+  const { data: venue } = useVenue()
+  const base = useVenueFormat()
+  const zone = () => venue.value?.timeZone ?? 'UTC'
+  const fmt = (iso: string | Date, opts: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat('en-US', { ...opts, timeZone: zone() }).format(new Date(iso))
+  const zoneName = (iso: string | Date) => new Intl.DateTimeFormat('en-US', { timeZone: zone(), timeZoneName: 'short' }).formatToParts(new Date(iso)).find(p => p.type === 'timeZoneName')?.value ?? zone()
+  return {
+    money: base.money,
+    dateTime: base.dateTime,
+    /** "Dec 3, 2026, 6:30 PM EST": an instant with the venue's zone named. */
+    when: (iso: string | Date) => `${base.dateTime(iso)} ${zoneName(iso)}`,
+    /** "Sat, Oct 3" */
+    day: (iso: string | Date) => fmt(iso, { weekday: 'short', month: 'short', day: 'numeric' }),
+    /** "2:00 PM" */
+    time: (iso: string | Date) => fmt(iso, { hour: 'numeric', minute: '2-digit' }),
+    /** "Saturday, October 3, 2026" */
+    longDay: (iso: string | Date) => fmt(iso, { dateStyle: 'full' }),
+    /** "EDT" */
+    zoneName,
+    /** "2 h 15 min" */
+    duration: (minutes: number) => (minutes >= 60 ? `${Math.floor(minutes / 60)} h${minutes % 60 ? ` ${minutes % 60} min` : ''}` : `${minutes} min`),
+  }
+}
+
+/** "1 standard drink", "2.4 standard drinks" under the venue's definition. */
+export function standardDrinksText(n: number): string {
+  const v = Math.round(n * 10) / 10
+  return `${v} standard drink${v === 1 ? '' : 's'}`
+}
+
+/** "US standard drink = 14 g of ethanol" */
+export function standardDrinkDefinition(venue: { standardDrinkKind: string, standardDrinkGrams: number }): string {
+  const name = ({ us: 'US standard drink', uk: 'UK unit', au: 'Australian standard drink', custom: 'standard drink' } as Record<string, string>)[venue.standardDrinkKind] ?? 'standard drink'
+  return `one ${name} = ${venue.standardDrinkGrams} g of ethanol`
+}

@@ -1,0 +1,76 @@
+import { and, eq, gt, inArray, isNull, isNotNull, lte, or } from 'drizzle-orm'
+
+const REMINDER_FROM_MS = 24 * 3_600_000
+const REMINDER_TO_MS = 25 * 3_600_000
+/** A refund that failed is tried again after this long (the booking's updated_at is the clock). */
+const REFUND_RETRY_MS = 60_000
+
+/** One pass of the booking housekeeping; safe to run from several processes at once. */
+export async function sweepBookings(): Promise<{ released: number, refunds: number, reminders: number }> {
+  return { released: await releaseRunOutHolds(), refunds: await retryRefunds(), reminders: await queueReminders() }
+}
+
+async function releaseRunOutHolds(): Promise<number> {
+  const b = tables.bookings
+  const stale = await useDb().select({ id: b.id, checkoutSessionId: b.checkoutSessionId }).from(b)
+    .where(and(eq(b.state, 'held'), lte(b.holdExpiresAt, new Date()))).limit(100)
+  let released = 0
+  for (const booking of stale) {
+    if (await endBookingHold(booking, 'hold_expired') === 'released') released++
+  }
+  return released
+}
+
+async function retryRefunds(): Promise<number> {
+  const b = tables.bookings
+  const due = await useDb().select({ id: b.id }).from(b).where(and(
+    isNull(b.refundedAt),
+    lte(b.updatedAt, new Date(Date.now() - REFUND_RETRY_MS)),
+    or(
+      // Bookings paid outside online checkout (no payment intent) are refunded by the venue itself.
+      and(eq(b.state, 'cancelled'), or(isNotNull(b.paymentIntentId), eq(b.amountPaidMinor, 0))),
+      and(eq(b.state, 'expired'), isNotNull(b.paymentIntentId), gt(b.amountPaidMinor, b.amountRefundedMinor)),
+    ),
+  )).limit(20)
+  let done = 0
+  for (const { id } of due) {
+    try {
+      if (await refundBooking(id)) done++
+    }
+    catch (err) {
+      console.error(`[bookings] refund of booking ${id} failed again:`, (err as Error).message)
+      await useDb().update(b).set({ updatedAt: new Date() }).where(eq(b.id, id))
+    }
+  }
+  return done
+}
+
+/** Confirmed bookings starting 24–25 hours from now get one reminder; the mark and the mail share a transaction. */
+async function queueReminders(): Promise<number> {
+  const b = tables.bookings
+  const s = tables.tastingSessions
+  const now = Date.now()
+  const rows = await useDb().select({ id: b.id }).from(b).innerJoin(s, eq(s.id, b.sessionId)).where(and(
+    eq(b.state, 'confirmed'),
+    isNull(b.reminderSentAt),
+    inArray(s.status, ['open', 'closed']),
+    gt(s.startsAt, new Date(now + REMINDER_FROM_MS)),
+    lte(s.startsAt, new Date(now + REMINDER_TO_MS)),
+  )).limit(200)
+  if (!rows.length) return 0
+  const venue = await getVenue()
+  let queued = 0
+  for (const { id } of rows) {
+    const sent = await bookingTransaction(async (tx) => {
+      const { booking, session } = await lockBookingWithSession(tx, id)
+      if (booking.state !== 'confirmed' || booking.reminderSentAt) return false
+      await tx.update(b).set({ reminderSentAt: new Date() }).where(and(eq(b.id, id), isNull(b.reminderSentAt)))
+      await queueMail(tx, reminderEmail(await bookingMailContext(venue, booking, session)))
+      return true
+    })
+    if (sent) queued++
+  }
+  if (queued) kickOutbox()
+  return queued
+}
+

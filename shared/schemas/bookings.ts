@@ -1,0 +1,33 @@
+import { z } from 'zod'
+import { emailField, isoDateField, personNameField } from './common'
+import { PARTY_MAX } from '../bookings'
+
+export const phoneField = z.string({ error: 'Enter a phone number.' }).trim()
+  .max(30, { error: 'That phone number is too long.' })
+  .regex(/^\+?[0-9 ().-]+$/, { error: 'Use digits, spaces, + ( ) - and . only.' })
+  .refine(s => s.replace(/\D/g, '').length >= 6, { error: 'Enter a phone number the venue can call on the day.' })
+
+/** The booking form and `POST /api/bookings` share this schema. */
+export const bookingCreateSchema = z.object({
+  sessionId: z.number({ error: 'Choose a session.' }).int({ error: 'Choose a session.' }).positive({ error: 'Choose a session.' }),
+  partySize: z.number({ error: 'Enter how many guests.' }).int({ error: 'Use a whole number of guests.' })
+    .min(1, { error: `Book for 1 to ${PARTY_MAX} guests.` }).max(PARTY_MAX, { error: `Book for 1 to ${PARTY_MAX} guests; for a larger group, contact the venue.` }),
+  contactName: personNameField,
+  contactEmail: emailField,
+  contactPhone: phoneField,
+  dateOfBirth: isoDateField,
+  ageConfirmed: z.boolean({ error: 'Confirm that everyone in your party is of legal drinking age and will bring photo ID.' })
+    .refine(v => v, { error: 'Confirm that everyone in your party is of legal drinking age and will bring photo ID.' }),
+})
+export type BookingCreateInput = z.input<typeof bookingCreateSchema>
+
+/** The manager's bookings view and the CSV export: dates are the venue's calendar days. */
+export const bookingReportQuerySchema = z.object({
+  from: isoDateField.optional(),
+  to: isoDateField.optional(),
+  flightId: z.coerce.number({ error: 'flightId must be a number.' }).int({ error: 'flightId must be a whole number.' }).positive({ error: 'flightId must be positive.' }).optional(),
+}).refine(q => !q.from || !q.to || q.from <= q.to, { error: 'The end date must not be before the start date.', path: ['to'] })
+
+export const sessionIdParam = z.object({
+  sessionId: z.coerce.number({ error: 'The session id must be a number.' }).int({ error: 'The session id must be a whole number.' }).positive({ error: 'The session id must be positive.' }),
+})
