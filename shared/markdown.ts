@@ -15,7 +15,7 @@ md.validateLink = (url: string) => SAFE_LINK.test(url.trim())
 const defaultLinkOpen = md.renderer.rules.link_open ?? ((tokens, idx, options, _env, self) => self.renderToken(tokens, idx, options))
 md.renderer.rules.link_open = (tokens, idx, options, env, self) => {
   const token = tokens[idx]!
-  const href = token.attrGet('href') ?? ''
+  const href = String(token.attrGet('href') ?? '')
   if (/^https?:\/\//i.test(href)) {
     token.attrSet('rel', 'noopener noreferrer nofollow')
     token.attrSet('target', '_blank')

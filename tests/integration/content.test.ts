@@ -117,7 +117,7 @@ describe('image uploads', () => {
   const png = () => sharp({ create: { width: 64, height: 48, channels: 3, background: '#c98a2b' } }).png().toBuffer()
 
   it('takes a PNG even when it is named .exe (the bytes decide), re-encodes it, and serves it resized', async () => {
-    const res = await upload(marketing, new Blob([await png()]), 'bottle.exe')
+    const res = await upload(marketing, new Blob([new Uint8Array(await png())]), 'bottle.exe')
     expect(res.status).toBe(201)
     expect(res.body.mimeType).toBe('image/png')
     expect(res.body.src).toMatch(/^[0-9a-f-]{36}\.png$/)
@@ -131,14 +131,14 @@ describe('image uploads', () => {
     const text = await upload(marketing, new Blob(['just some words, not a picture']), 'photo.jpg')
     expect(text.status).toBe(415)
     expect(text.body.message).toMatch(/JPEG, PNG or WebP/)
-    const big = await upload(marketing, new Blob([Buffer.alloc(9 * 1024 * 1024, 1)]), 'huge.png')
+    const big = await upload(marketing, new Blob([new Uint8Array(9 * 1024 * 1024).fill(1)]), 'huge.png')
     expect(big.status).toBe(413)
     expect(big.body.message).toMatch(/at most 8 MB/)
     expect(await countRows('images')).toBe(before)
   })
 
   it('stores a file named with ../ under a generated name', async () => {
-    const res = await upload(marketing, new Blob([await png()]), '../../../etc/passwd.png')
+    const res = await upload(marketing, new Blob([new Uint8Array(await png())]), '../../../etc/passwd.png')
     expect(res.status).toBe(201)
     expect(res.body.src).not.toContain('..')
     expect(res.body.src).not.toContain('passwd')
@@ -151,7 +151,7 @@ describe('image uploads', () => {
       .withExif({ IFD0: { Copyright: 'Test camera owner', Make: 'TestCam' }, IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '43/1 30/1 0/1', GPSLongitudeRef: 'W', GPSLongitude: '70/1 15/1 0/1' } })
       .toBuffer()
     expect((await sharp(withGps).metadata()).exif).toBeDefined()
-    const res = await upload(marketing, new Blob([withGps]), 'with-gps.jpg')
+    const res = await upload(marketing, new Blob([new Uint8Array(withGps)]), 'with-gps.jpg')
     expect(res.status).toBe(201)
     const stored = Buffer.from(await (await new Client().raw(`/media/${res.body.src}`)).arrayBuffer())
     const meta = await sharp(stored).metadata()
@@ -161,11 +161,11 @@ describe('image uploads', () => {
   })
 
   it('deleting an image removes its file; guests and hosts cannot upload', async () => {
-    const res = await upload(manager, new Blob([await png()]), 'label.png', { role: 'label' })
+    const res = await upload(manager, new Blob([new Uint8Array(await png())]), 'label.png', { role: 'label' })
     expect((await new Client().raw(`/media/${res.body.src}`)).status).toBe(200)
     expect((await manager.request('DELETE', `/api/images/${res.body.id}`)).status).toBe(200)
     expect((await new Client().raw(`/media/${res.body.src}`)).status).toBe(404)
-    expect((await upload(await signedIn('guest'), new Blob([await png()]), 'x.png')).status).toBe(403)
-    expect((await upload(await signedIn('host'), new Blob([await png()]), 'x.png')).status).toBe(403)
+    expect((await upload(await signedIn('guest'), new Blob([new Uint8Array(await png())]), 'x.png')).status).toBe(403)
+    expect((await upload(await signedIn('host'), new Blob([new Uint8Array(await png())]), 'x.png')).status).toBe(403)
   })
 })

@@ -30,7 +30,7 @@ export default defineEventHandler(async (event) => {
   }
   const format = q.f ?? (ext === 'jpg' ? 'jpeg' : ext)
   const cacheFile = resolve(dir, 'cache', `${name.replace(/\.\w+$/, '')}-${q.w ?? 0}-${q.q}.${format}`)
-  let out = await readFile(cacheFile).catch(() => null)
+  let out: Buffer | null = await readFile(cacheFile).catch(() => null)
   if (!out) {
     out = await sharp(original).resize({ width: q.w, withoutEnlargement: true }).toFormat(format, { quality: q.q }).toBuffer()
     await mkdir(resolve(dir, 'cache'), { recursive: true })
