@@ -11,7 +11,7 @@ export const useAccountStore = defineStore('account', () => {
   /** Where each role starts after signing in. */
   function homeFor(r: Role | null): string {
     if (r === 'manager') return '/manage'
-    if (r === 'host') return '/manage/sessions'
+    if (r === 'host') return '/host'
     if (r === 'marketing') return '/manage/content'
     return '/account'
   }

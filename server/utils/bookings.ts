@@ -164,7 +164,7 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     }
     const values = {
       venueId: venue.id, sessionId: session.id, userId: user.id, reference: newBookingReference(), state: 'held' as const,
-      partySize: input.partySize, contactName: input.contactName, contactEmail: input.contactEmail, contactPhone: input.contactPhone,
+      partySize: input.partySize, contactName: input.contactName, contactEmail: input.contactEmail, contactPhone: input.contactPhone, notes: input.notes ?? null,
       ageConfirmed: input.ageConfirmed, unitPriceMinor: session.priceMinor, amountMinor: session.priceMinor * input.partySize,
       currency: session.currency, holdExpiresAt: new Date(now.getTime() + holdMs),
     }

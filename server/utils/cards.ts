@@ -1,6 +1,10 @@
-import type { CardFonts } from '../cards/cardPdf'
+import { randomUUID } from 'node:crypto'
+import { and, asc, eq, inArray } from 'drizzle-orm'
+import { DateTime } from 'luxon'
+import { renderCardsPdf, type CardFonts, type CardPaper } from '../cards/cardPdf'
 import { buildFlightCard, type FlightCard } from '../cards/cardData'
 import type { Venue } from '../db/schema/venues'
+import type { TastingSession } from '../db/schema/sessions'
 
 let fonts: Promise<CardFonts> | undefined
 
@@ -26,4 +30,54 @@ export function cardFonts(): Promise<CardFonts> {
 export async function flightCard(venue: Venue, flightId: number, extra: { guestName?: string | null, sessionLabel?: string | null } = {}): Promise<FlightCard> {
   const view = await flightView(venue, await loadFlight(venue, flightId))
   return buildFlightCard({ venue, flight: view, publicUrl: appLink(`/pour/${flightId}`), ...extra })
+}
+
+/**
+ * One card per seated guest of a session (confirmed parties, and checked-in ones by the number
+ * actually seated), in party order. With `names`, each card says whom it was poured for.
+ */
+export async function sessionCards(venue: Venue, session: TastingSession, names: boolean): Promise<FlightCard[]> {
+  const base = await flightCard(venue, session.flightId, { sessionLabel: DateTime.fromJSDate(session.startsAt, { zone: venue.timeZone }).toFormat('ccc d LLL yyyy, HH:mm') })
+  const parties = await useDb().select({ b: tables.bookings, c: tables.checkIns }).from(tables.bookings)
+    .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, tables.bookings.id))
+    .where(and(eq(tables.bookings.sessionId, session.id), inArray(tables.bookings.state, ['confirmed', 'checked_in'])))
+    .orderBy(asc(tables.bookings.contactName))
+  const cards: FlightCard[] = []
+  for (const { b, c } of parties) {
+    const seats = b.state === 'checked_in' && c?.outcome === 'arrived' ? c.seated : b.partySize
+    for (let i = 0; i < seats; i++) {
+      const guestName = names ? (i === 0 ? b.contactName : `${b.contactName}'s party (${i + 1} of ${seats})`) : null
+      cards.push({ ...base, guestName })
+    }
+  }
+  return cards
+}
+
+export interface CardJob { id: string, ownerId: number, status: 'running' | 'done' | 'failed', done: number, total: number, pdf?: Buffer, error?: string, fileName: string, createdAt: number }
+const jobs = new Map<string, CardJob>()
+/** Finished PDFs are kept this long for download, then dropped. */
+const JOB_TTL_MS = 15 * 60_000
+
+/** Starts making a session's cards as one PDF in the background; progress is read from the job. */
+export function startCardJob(ownerId: number, cards: FlightCard[], paper: CardPaper, fileName: string): CardJob {
+  for (const [k, j] of jobs) if (Date.now() - j.createdAt > JOB_TTL_MS) jobs.delete(k)
+  const job: CardJob = { id: randomUUID(), ownerId, status: 'running', done: 0, total: cards.length, fileName, createdAt: Date.now() }
+  jobs.set(job.id, job)
+  void (async () => {
+    try {
+      job.pdf = await renderCardsPdf(cards, { paper, fonts: await cardFonts(), onCard: (done) => { job.done = done } })
+      job.status = 'done'
+    }
+    catch (err) {
+      job.status = 'failed'
+      job.error = (err as Error).message
+    }
+  })()
+  return job
+}
+
+export function findCardJob(id: string, user: CurrentUser): CardJob {
+  const job = jobs.get(id)
+  if (!job || (job.ownerId !== user.id && user.role !== 'manager')) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such print job (finished ones are kept for 15 minutes).' })
+  return job
 }

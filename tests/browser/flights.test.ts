@@ -81,7 +81,7 @@ describe('the print-ready card', () => {
     const { context, close } = await openBrowser({ width: 900, height: 1200 })
     const page = await context.newPage()
     await signInThroughForm(page, 'host@saltmarsh.test', DEMO_PASSWORD)
-    await page.waitForURL('**/manage/sessions')
+    await page.waitForURL('**/host')
     await page.goto('/cards/flights/1')
     await page.getByText('This flight:').waitFor()
     expect(await page.locator('.card-pour').count()).toBe(6)

@@ -174,7 +174,7 @@ describe('products through the browser, as the manager on a tablet', () => {
     const host = await openBrowser(TABLET)
     const hp = await host.context.newPage()
     await signInThroughForm(hp, 'host@saltmarsh.test', DEMO_PASSWORD)
-    await hp.waitForURL('**/manage/sessions')
+    await hp.waitForURL('**/host')
     await hp.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Products' }).click()
     await hp.waitForURL('**/manage/products')
     await hp.getByRole('link', { name: DEMO_PRODUCTS[4]!.name }).click()

@@ -22,6 +22,10 @@ export const bookings = mysqlTable('bookings', {
   contactName: varchar('contact_name', { length: 120 }).notNull(),
   contactEmail: varchar('contact_email', { length: 254 }).notNull(),
   contactPhone: varchar('contact_phone', { length: 30 }).notNull(),
+  /** Anything the host should know (allergies, an occasion); shown on the host's list. */
+  notes: varchar('notes', { length: 500 }),
+  /** Booked online, or seated by a host at the door (then `userId` is that host). */
+  source: mysqlEnum('source', ['online', 'walk_in']).notNull().default('online'),
   /** The booker confirmed that everyone in the party is of legal age and will bring ID. */
   ageConfirmed: boolean('age_confirmed').notNull(),
   unitPriceMinor: int('unit_price_minor').notNull(),

@@ -1,0 +1,8 @@
+import { cardJobParams } from '../../../../shared/schemas/cards'
+
+export default defineEventHandler(async (event) => {
+  const user = await requireRole(event, 'host', 'manager')
+  const { jobId } = await readParamsAs(event, cardJobParams)
+  const job = findCardJob(jobId, user)
+  return { jobId, status: job.status, done: job.done, total: job.total, error: job.error ?? null }
+})

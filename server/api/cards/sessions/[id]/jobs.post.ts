@@ -1,0 +1,14 @@
+import { idParam } from '../../../../../shared/schemas/common'
+import { sessionCardsSchema } from '../../../../../shared/schemas/cards'
+
+/** Starts one PDF of a session's cards (one per seated guest); poll the job for progress. */
+export default defineEventHandler(async (event) => {
+  const { id } = await readParamsAs(event, idParam)
+  const { paper, names } = await readBodyAs(event, sessionCardsSchema)
+  const { user, venue, session } = await requireSessionHost(event, id)
+  const cards = await sessionCards(venue, session, names)
+  if (!cards.length) throw createError({ statusCode: 409, statusMessage: 'No guests', message: 'Nobody is booked or seated in this session yet.' })
+  const job = startCardJob(user.id, cards, paper, `session-${id}-cards-${paper}.pdf`)
+  setResponseStatus(event, 202)
+  return { jobId: job.id, total: job.total }
+})

@@ -1,0 +1,18 @@
+import { idParam } from '../../../../../shared/schemas/common'
+import { checkInSchema } from '../../../../../shared/schemas/host'
+
+/** A party arrives: seat those whose ID was seen; the booking moves to checked in. */
+export default defineEventHandler(async (event) => {
+  const { id } = await readParamsAs(event, idParam)
+  const input = await readBodyAs(event, checkInSchema)
+  const { user, venue, session } = await requireSessionHost(event, await bookingSessionId(id))
+  assertSessionDay(session, venue)
+  await bookingTransaction(async (tx) => {
+    const { booking } = await lockBookingWithSession(tx, id)
+    if (input.seated > booking.partySize) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `This party booked ${booking.partySize}.`, data: { fields: { seated: `At most ${booking.partySize}.` } } })
+    if (input.seated < booking.partySize && !input.reason) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'Say why not everyone in the party is seated.', data: { fields: { reason: 'Say why not everyone is seated (e.g. no ID).' } } })
+    await moveBooking(tx, booking, 'arrive', { checkedInAt: new Date() })
+    await recordCheckIn(tx, id, user.id, { outcome: 'arrived', seated: input.seated, idsSeen: input.idsSeen, reason: input.reason })
+  })
+  return { ok: true }
+})

@@ -1,0 +1,14 @@
+import { idParam } from '../../../../../shared/schemas/common'
+
+/** After the start, a party that has not come is marked as a no-show. */
+export default defineEventHandler(async (event) => {
+  const { id } = await readParamsAs(event, idParam)
+  const { user, session } = await requireSessionHost(event, await bookingSessionId(id))
+  if (new Date() < session.startsAt) throw createError({ statusCode: 409, statusMessage: 'Too early', message: 'A party can be marked as not coming only after the session has started.' })
+  await bookingTransaction(async (tx) => {
+    const { booking } = await lockBookingWithSession(tx, id)
+    await moveBooking(tx, booking, 'no_show')
+    await recordCheckIn(tx, id, user.id, { outcome: 'no_show', seated: 0, idsSeen: 0 })
+  })
+  return { ok: true }
+})

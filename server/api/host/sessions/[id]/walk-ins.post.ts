@@ -1,0 +1,29 @@
+import { idParam } from '../../../../../shared/schemas/common'
+import { walkInSchema } from '../../../../../shared/schemas/host'
+
+/**
+ * Seats a walk-in party in seats left, with every ID checked: a booking made at the door (paid at
+ * the bar), checked in at once. The session row is locked, so a walk-in never takes a booked seat.
+ */
+export default defineEventHandler(async (event) => {
+  const { id } = await readParamsAs(event, idParam)
+  const input = await readBodyAs(event, walkInSchema)
+  const { user, venue, session } = await requireSessionHost(event, id)
+  assertSessionDay(session, venue)
+  const bookingId = await bookingTransaction(async (tx) => {
+    const locked = await lockSessionRow(tx, id)
+    const left = locked.seats - await seatsTaken(tx, id)
+    if (input.partySize > left) bookingConflict(left ? `Only ${left} seat${left === 1 ? '' : 's'} left.` : 'No seats left in this session.', { seatsLeft: left })
+    const now = new Date()
+    const [row] = await tx.insert(tables.bookings).values({
+      venueId: venue.id, sessionId: id, userId: user.id, reference: newBookingReference(), state: 'checked_in', source: 'walk_in',
+      partySize: input.partySize, contactName: input.contactName, contactEmail: '', contactPhone: '', notes: input.notes,
+      ageConfirmed: true, unitPriceMinor: locked.priceMinor, amountMinor: locked.priceMinor * input.partySize, currency: locked.currency,
+      holdExpiresAt: now, confirmedAt: now, checkedInAt: now,
+    }).$returningId()
+    await recordCheckIn(tx, row!.id, user.id, { outcome: 'arrived', seated: input.partySize, idsSeen: input.idsSeen })
+    return row!.id
+  })
+  setResponseStatus(event, 201)
+  return { id: bookingId }
+})

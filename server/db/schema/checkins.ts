@@ -1,0 +1,23 @@
+import { mysqlTable, int, varchar, mysqlEnum, uniqueIndex, index } from 'drizzle-orm/mysql-core'
+import { utcDatetime } from './common'
+import { bookings } from './bookings'
+import { users } from './users'
+
+/**
+ * What the host recorded at the door for one party: how many were seated with their ID seen, or
+ * that the party was turned away, and why. One row per booking.
+ */
+export const checkIns = mysqlTable('check_ins', {
+  id: int('id').autoincrement().primaryKey(),
+  bookingId: int('booking_id').notNull().references(() => bookings.id, { onDelete: 'cascade' }),
+  hostId: int('host_id').references(() => users.id, { onDelete: 'set null' }),
+  outcome: mysqlEnum('outcome', ['arrived', 'turned_away', 'no_show']).notNull(),
+  /** Guests seated (each with ID seen); 0 when turned away or absent. */
+  seated: int('seated').notNull(),
+  idsSeen: int('ids_seen').notNull(),
+  /** Why some or all of the party were not served (required then). */
+  reason: varchar('reason', { length: 300 }),
+  recordedAt: utcDatetime('recorded_at').notNull(),
+}, t => [uniqueIndex('check_ins_booking_uq').on(t.bookingId), index('check_ins_host_idx').on(t.hostId)])
+
+export type CheckIn = typeof checkIns.$inferSelect

@@ -1,0 +1,26 @@
+import { z } from 'zod'
+import { PARTY_MAX } from '../bookings'
+import { isoDateField, personNameField } from './common'
+
+export const hostDayQuerySchema = z.object({ date: isoDateField.optional() })
+
+const reasonField = z.string({ error: 'Give a reason.' }).trim().min(3, { error: 'Say briefly why (at least 3 characters).' }).max(300, { error: 'Keep the reason under 300 characters.' })
+
+/**
+ * A party arrives: how many sit down, each with photo ID seen. When fewer than the whole party
+ * sit down, the reason (e.g. one guest had no ID) is required.
+ */
+export const checkInSchema = z.object({
+  seated: z.number({ error: 'How many guests are seated?' }).int().min(1, { error: 'Seat at least one guest, or turn the party away.' }).max(PARTY_MAX),
+  idsSeen: z.number({ error: 'Tick the ID of each seated guest.' }).int().min(0).max(PARTY_MAX),
+  reason: reasonField.optional(),
+}).refine(v => v.idsSeen === v.seated, { error: 'Check the ID of every guest you seat.', path: ['idsSeen'] })
+
+export const turnAwaySchema = z.object({ reason: reasonField })
+
+export const walkInSchema = z.object({
+  contactName: personNameField,
+  partySize: z.number({ error: 'How many guests?' }).int({ error: 'Use a whole number.' }).min(1, { error: 'At least one guest.' }).max(PARTY_MAX, { error: `At most ${PARTY_MAX} guests at once.` }),
+  idsSeen: z.number({ error: 'Tick the ID of each guest.' }).int().min(0).max(PARTY_MAX),
+  notes: z.string().trim().max(500).optional().transform(v => v || null),
+}).refine(v => v.idsSeen === v.partySize, { error: 'Check the ID of every walk-in guest before seating them.', path: ['idsSeen'] })
