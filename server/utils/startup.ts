@@ -78,6 +78,12 @@ async function seedDemo(): Promise<void> {
           durationMinutes: series.durationMinutes, seats: series.seats, priceMinor: series.priceMinor, bookingCutoffMinutes: series.bookingCutoffMinutes,
         })))
       }
+      // One session later today, so the host's day has parties to check in from the first start.
+      const soon = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ minutes: 90 }).startOf('hour')
+      await tx.insert(tables.tastingSessions).values({
+        venueId, flightId, startsAt: soon.toUTC().toJSDate(), hostId: host?.id ?? null, currency: DEMO_VENUE.currency,
+        durationMinutes: 75, seats: 10, priceMinor: 3500, bookingCutoffMinutes: 30,
+      })
     }
     await seedDemoBookings(tx, venueId)
   })

@@ -16,7 +16,7 @@ export const bookingCreateSchema = z.object({
   contactEmail: emailField,
   contactPhone: phoneField,
   dateOfBirth: isoDateField,
-  notes: z.string({ error: 'Notes must be text.' }).trim().max(500, { error: 'Keep notes under 500 characters.' }).optional().transform(v => v || null),
+  notes: z.string({ error: 'Notes must be text.' }).trim().max(500, { error: 'Keep notes under 500 characters.' }).nullish().transform(v => v || null),
   ageConfirmed: z.boolean({ error: 'Confirm that everyone in your party is of legal drinking age and will bring photo ID.' })
     .refine(v => v, { error: 'Confirm that everyone in your party is of legal drinking age and will bring photo ID.' }),
 })

@@ -22,5 +22,5 @@ export const walkInSchema = z.object({
   contactName: personNameField,
   partySize: z.number({ error: 'How many guests?' }).int({ error: 'Use a whole number.' }).min(1, { error: 'At least one guest.' }).max(PARTY_MAX, { error: `At most ${PARTY_MAX} guests at once.` }),
   idsSeen: z.number({ error: 'Tick the ID of each guest.' }).int().min(0).max(PARTY_MAX),
-  notes: z.string().trim().max(500).optional().transform(v => v || null),
+  notes: z.string({ error: 'Notes must be text.' }).trim().max(500, { error: 'Keep notes under 500 characters.' }).nullish().transform(v => v || null),
 }).refine(v => v.idsSeen === v.partySize, { error: 'Check the ID of every walk-in guest before seating them.', path: ['idsSeen'] })

@@ -36,3 +36,14 @@ describe('shared schemas', () => {
     expect(venueSchema.safeParse({ ...base, timeZone: 'Nowhere/Else', standardDrinkKind: 'us', standardDrinkGrams: 14 }).success).toBe(false)
   })
 })
+
+describe('booking notes', () => {
+  it('a form that sends the parsed value back (null for an empty note) still validates', async () => {
+    const { bookingCreateSchema } = await import('../../shared/schemas/bookings')
+    const base = { sessionId: 1, partySize: 2, contactName: 'A', contactEmail: 'a@b.test', contactPhone: '+1 207 555 0100', dateOfBirth: '1990-01-01', ageConfirmed: true }
+    for (const notes of ['', null, undefined, 'Nut allergy']) {
+      const once = bookingCreateSchema.parse({ ...base, notes })
+      expect(bookingCreateSchema.parse(once).notes).toBe(notes || null)
+    }
+  })
+})
