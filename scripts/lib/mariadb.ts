@@ -74,7 +74,18 @@ export async function startDb(i: DbInstance): Promise<void> {
       '--collation-server=utf8mb4_unicode_ci', '--default-time-zone=+00:00', '--max-connections=300',
       `--log-error=${resolve(dir, 'mariadbd.err')}`], { detached: true, stdio: ['ignore', log, log] })
     child.unref()
-    await waitFor(() => ping(i), 30_000, `MariaDB on port ${i.port} (see ${dir}/mariadbd.err)`)
+    let exited = false
+    child.once('exit', () => { exited = true })
+    await waitFor(() => {
+      if (exited && !ping(i)) {
+        const log = readFileSync(resolve(dir, 'mariadbd.err'), 'utf8')
+        const inUse = /Address already in use/.test(log.slice(-4000))
+        throw new Error(inUse
+          ? `port ${i.port} is already taken by another program (another checkout's database?). Stop it (npm run db -- stop there) and run this again.`
+          : `MariaDB stopped while starting; the end of ${dir}/mariadbd.err says:\n${log.trim().split('\n').slice(-8).join('\n')}`)
+      }
+      return ping(i)
+    }, 30_000, `MariaDB on port ${i.port} (see ${dir}/mariadbd.err)`)
   }
   const setup = client(i, [
     `CREATE DATABASE IF NOT EXISTS \`${i.database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`,
