@@ -36,9 +36,9 @@ export default defineNuxtConfig({
     // apiHost/apiPort/apiProtocol (NUXT_STRIPE_API_HOST, …) so the official SDK talks to it instead.
     stripe: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '' },
     booking: {
-      // Seats are held this long while the guest pays; the Checkout Session expires at the same moment
-      // (Stripe's shortest Checkout Session is 30 minutes, so a shorter hold is lengthened to 30 there).
-      holdMinutes: 30,
+      // Seats are held this long while the guest pays. Stripe's shortest Checkout Session lasts 30
+      // minutes, so the sweep closes it through the SDK when the hold ends sooner.
+      holdMinutes: 15,
       // How often expired holds are released, refunds retried and day-before reminders queued.
       sweepSeconds: 30,
     },

