@@ -127,3 +127,15 @@ describe('sign-in throttling', () => {
     expect((await c.signIn(email, adult.password)).status).toBe(200)
   })
 })
+
+describe('sign-ups at the same moment', () => {
+  it('different addresses all succeed; the same address succeeds exactly once', async () => {
+    const many = await Promise.all(Array.from({ length: 20 }, (_, i) => new Client().post('/api/auth/signup', { ...adult, email: uniqueEmail(`burst${i}`) })))
+    expect(many.map(r => r.status)).toEqual(Array(20).fill(201))
+    const email = uniqueEmail('same')
+    const same = await Promise.all(Array.from({ length: 6 }, () => new Client().post('/api/auth/signup', { ...adult, email })))
+    expect(same.filter(r => r.status === 201)).toHaveLength(1)
+    expect(same.filter(r => r.status === 409)).toHaveLength(5)
+    expect(await countRows('users', 'email = ?', [email])).toBe(1)
+  })
+})
