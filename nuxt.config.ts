@@ -34,7 +34,7 @@ export default defineNuxtConfig({
     uploadDir: '.data/uploads',
     // Payments through Stripe Checkout. Production sets only the two keys; the local fake also sets
     // apiHost/apiPort/apiProtocol (NUXT_STRIPE_API_HOST, …) so the official SDK talks to it instead.
-    stripe: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '' },
+    stripe: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '', checkoutOrigin: 'https://checkout.stripe.com' },
     booking: {
       // Seats are held this long while the guest pays; the Checkout Session expires at the same moment
       // (Stripe's shortest Checkout Session is 30 minutes, so a shorter hold is lengthened to 30 there).
@@ -47,6 +47,21 @@ export default defineNuxtConfig({
       cookie: { sameSite: 'lax', httpOnly: true, secure: false },
     },
     public: { appName: 'Larmoir' },
+  },
+  routeRules: {
+    // Security headers on every response; pages get their content security policy (with a nonce)
+    // from server/plugins/security.ts, everything else this one: nothing may run or frame it.
+    '/**': {
+      headers: {
+        'x-content-type-options': 'nosniff',
+        'x-frame-options': 'DENY',
+        'referrer-policy': 'strict-origin-when-cross-origin',
+        'permissions-policy': 'camera=(), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()',
+        'content-security-policy': "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'",
+      },
+    },
+    // The card PDF opens in the browser's own viewer, which a default-src 'none' would blank.
+    '/api/cards/flights/**': { headers: { 'content-security-policy': "frame-ancestors 'self'" } },
   },
   nitro: {
     // The Lora files the card PDFs embed, bundled with the server (pdfkit reads .woff, not .woff2).

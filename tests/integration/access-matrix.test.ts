@@ -233,6 +233,16 @@ describe('access matrix', () => {
     expect(seen).toEqual(row.expect)
   })
 
+  it('every state-changing route refuses a request from another site, whoever sends it', async () => {
+    for (const row of ROUTES.filter(r => !r.route.startsWith('GET ') && !r.perRole && !r.fresh)) {
+      const [method] = row.route.split(' ')
+      for (const role of ['guest', 'manager'] as const) {
+        const res = await people[role].request(method!, await row.path(fx), row.body?.(fx, role) ?? {}, { origin: 'https://elsewhere.example' })
+        expect(res.status, `${role}: ${row.route}`).toBe(403)
+      }
+    }
+  })
+
   it('has one row for every route file, and no row for a route that does not exist', () => {
     const inTable = [...new Set(ROUTES.map(r => r.route))].sort()
     expect(inTable).toEqual(routeFiles())
