@@ -78,5 +78,12 @@ export default defineNuxtConfig({
     providers: { larmoir: { provider: '~/providers/larmoir.ts' } },
     screens: { sm: 390, md: 768, lg: 1024, card: 600 },
   },
+  hooks: {
+    // A database that is down answers 503 on every route; Nuxt's own handler takes every other error.
+    'nitro:config'(config) {
+      const theirs = config.errorHandler
+      config.errorHandler = ['~~/server/errors/database.ts', ...(Array.isArray(theirs) ? theirs : theirs ? [theirs] : [])]
+    },
+  },
   vite: { server: { hmr: { host: '127.0.0.1' } } },
 })
