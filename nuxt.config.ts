@@ -34,7 +34,7 @@ export default defineNuxtConfig({
     uploadDir: '.data/uploads',
     // Payments through Stripe Checkout. Production sets only the two keys; the local fake also sets
     // apiHost/apiPort/apiProtocol (NUXT_STRIPE_API_HOST, …) so the official SDK talks to it instead.
-    stripe: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '' },
+    stripe: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '', checkoutOrigin: 'https://checkout.stripe.com' },
     booking: {
       // Seats are held this long while the guest pays. Stripe's shortest Checkout Session lasts 30
       // minutes, so the sweep closes it through the SDK when the hold ends sooner.
@@ -47,6 +47,21 @@ export default defineNuxtConfig({
       cookie: { sameSite: 'lax', httpOnly: true, secure: false },
     },
     public: { appName: 'Larmoir' },
+  },
+  routeRules: {
+    // Security headers on every response; pages get their content security policy (with a nonce)
+    // from server/plugins/security.ts, everything else this one: nothing may run or frame it.
+    '/**': {
+      headers: {
+        'x-content-type-options': 'nosniff',
+        'x-frame-options': 'DENY',
+        'referrer-policy': 'strict-origin-when-cross-origin',
+        'permissions-policy': 'camera=(), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()',
+        'content-security-policy': "default-src 'none'; frame-ancestors 'none'; base-uri 'none'; form-action 'none'",
+      },
+    },
+    // The card PDF opens in the browser's own viewer, which a default-src 'none' would blank.
+    '/api/cards/flights/**': { headers: { 'content-security-policy': "frame-ancestors 'self'" } },
   },
   nitro: {
     // The Lora files the card PDFs embed, bundled with the server (pdfkit reads .woff, not .woff2).
@@ -62,6 +77,13 @@ export default defineNuxtConfig({
     provider: 'larmoir',
     providers: { larmoir: { provider: '~/providers/larmoir.ts' } },
     screens: { sm: 390, md: 768, lg: 1024, card: 600 },
+  },
+  hooks: {
+    // A database that is down answers 503 on every route; Nuxt's own handler takes every other error.
+    'nitro:config'(config) {
+      const theirs = config.errorHandler
+      config.errorHandler = ['~~/server/errors/database.ts', ...(Array.isArray(theirs) ? theirs : theirs ? [theirs] : [])]
+    },
   },
   vite: { server: { hmr: { host: '127.0.0.1' } } },
 })

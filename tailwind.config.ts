@@ -14,7 +14,7 @@ export default {
     extend: {
       colors: {
         paper: '#faf7f1',
-        ink: { DEFAULT: '#1e2326', soft: '#4a5459', faint: '#7b868c' },
+        ink: { DEFAULT: '#1e2326', soft: '#4a5459', faint: '#58636a' },
         lagoon: { 50: '#eef6f5', 100: '#d5eae7', 300: '#83bdb5', 500: '#2f7d74', 600: '#25665f', 700: '#1c4f4a', 900: '#10302d' },
         amber: { 100: '#fbefd9', 300: '#efc27a', 500: '#c98a2b', 700: '#8a5a12' },
         brick: { 100: '#f8e3df', 500: '#b3442f', 700: '#83301f' },

@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from '#shared/schemas/zod'
 import type { Allergen, ProductKind, ProductStatus } from '#shared/products'
 import { measurementSchema, productCreateSchema, productPatchSchema } from '#shared/schemas/products'
 import { fromDisplayTemp, toDisplayTemp } from '#shared/pours'

@@ -20,7 +20,12 @@ export interface StoredMail {
   attachments: { filename: string, contentType: string, size: number }[]
 }
 
-export interface MailFake { close: () => Promise<void>, messages: StoredMail[] }
+/** 'reject': every message is refused with a temporary error; 'timeout': the greeting never comes. */
+export type MailFault = null | 'reject' | 'timeout'
+/** How long a held connection waits (the app's own greeting timeout is 5 s) before it is dropped. */
+const FAULT_HOLD_MS = 15_000
+
+export interface MailFake { close: () => Promise<void>, messages: StoredMail[], setFault: (mode: MailFault) => void }
 
 const escapeHtml = (s: string) => s.replace(/[&<>"']/g, c => `&#${c.charCodeAt(0)};`)
 
@@ -43,11 +48,26 @@ export async function startMailFake(opts: { smtpPort: number, httpPort: number, 
   mkdirSync(opts.dir, { recursive: true })
   const messages: StoredMail[] = []
   let nextId = 1
+  let fault: MailFault = null
+  const held = new Set<NodeJS.Timeout>()
 
   const smtp = new SMTPServer({
     authOptional: true,
     disabledCommands: ['STARTTLS'],
     logger: false,
+    onConnect(_session, callback) {
+      if (fault !== 'timeout') return callback()
+      const timer = setTimeout(() => { held.delete(timer); callback(new Error('Simulated timeout of the local mail fake')) }, FAULT_HOLD_MS)
+      held.add(timer)
+    },
+    onMailFrom(_address, _session, callback) {
+      if (fault === 'reject') {
+        const err = new Error('Simulated outage of the local mail fake (fault mode "reject")') as Error & { responseCode: number }
+        err.responseCode = 451 // RFC 5321 §4.2.3: local error in processing, try again later
+        return callback(err)
+      }
+      callback()
+    },
     onData(stream, session, callback) {
       const chunks: Buffer[] = []
       stream.on('data', (c: Buffer) => chunks.push(c))
@@ -82,6 +102,21 @@ export async function startMailFake(opts: { smtpPort: number, httpPort: number, 
       messages.length = 0
       res.writeHead(204).end()
     }
+    else if (url.pathname === '/__fake/fault' && req.method === 'POST') {
+      let raw = ''
+      req.on('data', (c: Buffer) => { raw += c.toString('utf8') })
+      req.on('end', () => {
+        let mode: unknown
+        try { mode = (JSON.parse(raw || '{}') as { mode?: unknown }).mode ?? null }
+        catch { mode = 'bad' }
+        if (mode !== null && mode !== 'reject' && mode !== 'timeout') {
+          res.writeHead(400, { 'content-type': 'application/json' }).end(JSON.stringify({ message: 'mode must be "reject", "timeout" or null' }))
+          return
+        }
+        fault = mode
+        res.writeHead(200, { 'content-type': 'application/json' }).end(JSON.stringify({ mode: fault }))
+      })
+    }
     else if (url.pathname === '/') {
       res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' }).end(page(messages))
     }
@@ -95,7 +130,10 @@ export async function startMailFake(opts: { smtpPort: number, httpPort: number, 
 
   return {
     messages,
+    setFault: (mode) => { fault = mode },
     close: async () => {
+      for (const t of held) clearTimeout(t)
+      held.clear()
       await new Promise<void>(ok => smtp.close(() => ok()))
       await new Promise<void>(ok => http.close(() => ok()))
     },

@@ -100,6 +100,7 @@ export async function startStack(profile: StackProfile, opts: { freshDatabase?: 
         NUXT_STRIPE_API_HOST: '127.0.0.1',
         NUXT_STRIPE_API_PORT: String(profile.stripePort),
         NUXT_STRIPE_API_PROTOCOL: 'http',
+        NUXT_STRIPE_CHECKOUT_ORIGIN: new URL(profile.stripePublicUrl).origin,
       },
     })
   }

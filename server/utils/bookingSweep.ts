@@ -5,9 +5,28 @@ const REMINDER_TO_MS = 25 * 3_600_000
 /** A refund that failed is tried again after this long (the booking's updated_at is the clock). */
 const REFUND_RETRY_MS = 60_000
 
+/**
+ * A paid hold that still has no Checkout Session this long after it was made lost its payment page
+ * to a failure between the two steps (the database or the provider went away after the hold was
+ * written); its guest was told nothing was booked, so its seats go back.
+ */
+const ORPHAN_HOLD_MS = 2 * 60_000
+
 /** One pass of the booking housekeeping; safe to run from several processes at once. */
 export async function sweepBookings(): Promise<{ released: number, refunds: number, reminders: number }> {
-  return { released: await releaseRunOutHolds(), refunds: await retryRefunds(), reminders: await queueReminders() }
+  const released = await releaseRunOutHolds() + await releaseOrphanHolds()
+  return { released, refunds: await retryRefunds(), reminders: await queueReminders() }
+}
+
+async function releaseOrphanHolds(): Promise<number> {
+  const b = tables.bookings
+  const orphans = await useDb().select({ id: b.id, checkoutSessionId: b.checkoutSessionId }).from(b)
+    .where(and(eq(b.state, 'held'), isNull(b.checkoutSessionId), gt(b.amountMinor, 0), lte(b.createdAt, new Date(Date.now() - ORPHAN_HOLD_MS)))).limit(100)
+  let released = 0
+  for (const booking of orphans) {
+    if (await endBookingHold(booking, 'checkout_failed') === 'released') released++
+  }
+  return released
 }
 
 async function releaseRunOutHolds(): Promise<number> {

@@ -18,18 +18,62 @@ async function parseWith<S extends z.ZodType>(schema: S, value: unknown): Promis
   return result.data
 }
 
-/** Reads and validates the JSON body; malformed JSON and failed checks both answer 400 per field. */
+/**
+ * Characters no text of ours may hold: NUL and other C0 controls (tab and line breaks are fine),
+ * the bidirectional overrides and isolates that make text read differently from how it is stored
+ * (Unicode TR #9; CVE-2021-42574), and lone surrogates, which are not text at all and which MariaDB's
+ * utf8mb4 cannot store.
+ */
+const FORBIDDEN_TEXT = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u202A-\u202E\u2066-\u2069]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/
+const TEXT_MESSAGE = 'Remove the control or text-direction characters from this text.'
+
+/** The path of the first string in `value` that holds a forbidden character, or null. */
+function forbiddenTextAt(value: unknown, path: string[] = []): string | null {
+  if (typeof value === 'string') return FORBIDDEN_TEXT.test(value) ? (path.join('.') || '_') : null
+  if (value && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) {
+      const hit = forbiddenTextAt(v, [...path, k])
+      if (hit) return hit
+    }
+  }
+  return null
+}
+
+function refuseForbiddenText(value: unknown): void {
+  const at = forbiddenTextAt(value)
+  if (at) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: TEXT_MESSAGE, data: { fields: { [at]: TEXT_MESSAGE } } })
+}
+
+const notJson = () => createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The request body is not valid JSON.', data: { fields: { _: 'The request body is not valid JSON.' } } })
+
+/**
+ * Reads and validates the JSON body. Over the route's size limit → 413; malformed JSON, forbidden
+ * characters and failed checks → 400 per field.
+ */
 export async function readBodyAs<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
-  let body: unknown
-  try { body = await readBody(event) }
-  catch { throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The request body is not valid JSON.', data: { fields: { _: 'The request body is not valid JSON.' } } }) }
+  const raw = await readRawBody(event, 'utf8')
+  if (raw && Buffer.byteLength(raw) > bodyLimitFor(event.path)) bodyTooLarge(event)
+  let body: unknown = {}
+  if (raw && raw.trim()) {
+    try { body = JSON.parse(raw) }
+    catch { throw notJson() }
+  }
+  refuseForbiddenText(body)
   return parseWith(schema, body ?? {})
 }
 
+/** Query values come once each: `?copies=2&copies=3` (an array) is refused, not coerced. */
 export function readQueryAs<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
-  return parseWith(schema, getQuery(event))
+  const query = getQuery(event)
+  for (const [key, value] of Object.entries(query)) {
+    if (Array.isArray(value)) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `Give ${key} once.`, data: { fields: { [key]: `Give ${key} once.` } } })
+  }
+  refuseForbiddenText(query)
+  return parseWith(schema, query)
 }
 
 export function readParamsAs<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
-  return parseWith(schema, getRouterParams(event, { decode: true }))
+  const params = getRouterParams(event, { decode: true })
+  refuseForbiddenText(params)
+  return parseWith(schema, params)
 }

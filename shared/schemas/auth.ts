@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { emailField, isoDateField, passwordField, personNameField, tokenField } from './common'
 
 /** Age in whole years on a given day (UTC calendar dates). */

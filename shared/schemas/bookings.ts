@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { emailField, isoDateField, personNameField } from './common'
 import { PARTY_MAX } from '../bookings'
 

@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 
 export const cardPdfQuerySchema = z.object({
   paper: z.enum(['a5', 'half-letter'], { error: 'Paper must be a5 or half-letter.' }).default('a5'),

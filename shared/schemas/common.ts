@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 
 export const emailField = z.string({ error: 'Enter your e-mail address.' })
   .trim().toLowerCase().max(254, { error: 'That e-mail address is too long.' })

@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { CONTENT_KINDS } from '../content'
 
 export const contentParams = z.object({

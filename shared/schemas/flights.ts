@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { POURS_MAX, POURS_MIN } from '../flights'
 import { TEMP_RANGE_C, WALL_ANGLE_RANGE_DEG } from '../../server/science/ranges'
 

@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { LAB_SHEET_MAX_BYTES } from '../labSheet'
 
 export const labSheetUploadSchema = z.object({

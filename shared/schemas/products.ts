@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { ALLERGENS, PRODUCT_KINDS, PRODUCT_STATUSES } from '../products'
 import { ABV_RANGE_PCT_VOL, SUGAR_RANGE_G_L, TEMP_RANGE_C } from '../../server/science/ranges'
 import { isoDateField } from './common'

@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { ABV_RANGE_PCT_VOL, SUGAR_RANGE_G_L, TEMP_RANGE_C, WALL_ANGLE_RANGE_DEG } from '../../server/science/ranges'
 import { DEFAULT_WALL_ANGLE_DEG } from '../../server/science/predictions'
 

@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 import { STAFF_ROLES } from '../roles'
 import { emailField, personNameField } from './common'
 

@@ -1,4 +1,4 @@
-import { z } from 'zod'
+import { z } from './zod'
 
 /** Standard-drink definitions in grams of ethanol: NIAAA (US), NHS unit (UK), Australian guidelines. */
 export const STANDARD_DRINK_GRAMS = { us: 14, uk: 8, au: 10 } as const

@@ -74,7 +74,9 @@ export async function demoFlightId(): Promise<number> {
   if (publishedFlightId) return publishedFlightId
   const res = await new Client().get('/api/flights/published')
   expect(res.status).toBe(200)
-  publishedFlightId = res.body[0].id as number
+  // The demo's flight by name: other tests publish flights of their own.
+  publishedFlightId = (res.body as { id: number, name: string }[]).find(f => f.name === 'Shoreline Flight')!.id
+
   return publishedFlightId
 }
 

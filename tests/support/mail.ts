@@ -20,3 +20,9 @@ export function linkToken(mail: StoredMail, path: string): string {
   if (!m?.[1]) throw new Error(`no ${path} link in the e-mail`)
   return m[1]
 }
+
+/** Switches the e-mail fake's fault: 'reject' refuses every message (451), 'timeout' never greets. */
+export async function setMailFault(mode: null | 'reject' | 'timeout'): Promise<void> {
+  const res = await fetch(`${inject('mailUrl')}/__fake/fault`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode }) })
+  if (res.status !== 200) throw new Error(`the mail fake refused the fault switch: ${res.status}`)
+}
