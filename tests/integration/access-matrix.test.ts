@@ -102,6 +102,18 @@ const ROUTES: Row[] = [
   { route: 'GET /api/glasses', path: () => '/api/glasses', expect: staff(200) },
   { route: 'GET /api/sessions', path: () => '/api/sessions', expect: staff(200) },
   { route: 'GET /api/sessions/[id]', path: f => `/api/sessions/${f.session}`, expect: staff(200) },
+  // The host's day: only the session's host or a manager; the matrix session has no host and is
+  // not today, so a manager passes the guard and meets the day rule (409).
+  { route: 'GET /api/host/day', path: () => '/api/host/day', expect: only({ host: 200, manager: 200 }) },
+  { route: 'POST /api/host/bookings/[id]/check-in', path: f => `/api/host/bookings/${f.paidBooking}/check-in`, body: () => ({ seated: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
+  { route: 'POST /api/host/bookings/[id]/turn-away', path: f => `/api/host/bookings/${f.paidBooking}/turn-away`, body: () => ({ reason: 'No photo ID' }), expect: only({ manager: 409 }) },
+  { route: 'POST /api/host/bookings/[id]/no-show', path: f => `/api/host/bookings/${f.paidBooking}/no-show`, expect: only({ manager: 409 }) },
+  { route: 'POST /api/host/sessions/[id]/walk-ins', path: f => `/api/host/sessions/${f.session}/walk-ins`, body: () => ({ contactName: 'Matrix Walk-in', partySize: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
+  { route: 'GET /api/cards/sessions/[id]', path: f => `/api/cards/sessions/${f.session}`, expect: only({ manager: 200 }) },
+  // The matrix session has no paid party of its own, so the job is refused as empty (409).
+  { route: 'POST /api/cards/sessions/[id]/jobs', path: f => `/api/cards/sessions/${f.session}/jobs`, body: () => ({ paper: 'a5', names: false }), expect: only({ manager: 409 }) },
+  { route: 'GET /api/cards/jobs/[jobId]', path: () => '/api/cards/jobs/00000000-0000-4000-8000-000000000000', expect: only({ host: 404, manager: 404 }) },
+  { route: 'GET /api/cards/jobs/[jobId]/pdf', path: () => '/api/cards/jobs/00000000-0000-4000-8000-000000000000/pdf', expect: only({ host: 404, manager: 404 }) },
   { route: 'GET /api/cards/flights/[id]', path: f => `/api/cards/flights/${f.flightId}`, expect: staff(200) },
   { route: 'GET /api/cards/flights/[id]/pdf', path: f => `/api/cards/flights/${f.flightId}/pdf?paper=a5`, expect: staff(200) },
   { route: 'GET /api/images', path: f => `/api/images?productId=${f.productId}`, expect: staff(200) },
