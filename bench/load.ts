@@ -100,7 +100,7 @@ async function main() {
       connections: 50,
       requests: [{
         method: 'POST',
-        setupRequest: (req) => {
+        setupRequest: (req: autocannon.Request) => {
           const g = guests[n % guests.length]!
           const sessionId = sessions[Math.floor(n / guests.length) % sessions.length]!
           n++
