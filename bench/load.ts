@@ -21,7 +21,7 @@ import { DEMO_PASSWORD, DEMO_VENUE } from '../server/demo/data'
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10)
 const BENCH_DB: DbInstance = { name: 'bench-db', port: 3419, database: 'larmoir_bench', user: 'larmoir', password: 'larmoir' }
 const PORTS = { app: 3199, smtp: 2599, mailHttp: 1099, stripe: 12199 }
-const GUESTS = 150
+const GUESTS = 400
 const root = resolve(import.meta.dirname, '..')
 const base = `http://127.0.0.1:${PORTS.app}`
 
@@ -100,7 +100,7 @@ async function main() {
       connections: 50,
       requests: [{
         method: 'POST',
-        setupRequest: (req) => {
+        setupRequest: (req: autocannon.Request) => {
           const g = guests[n % guests.length]!
           const sessionId = sessions[Math.floor(n / guests.length) % sessions.length]!
           n++

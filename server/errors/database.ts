@@ -10,7 +10,7 @@ export default function databaseErrorHandler(error: unknown, event: H3Event) {
   if (!isDatabaseDown(error)) return
   console.error(`[larmoir] database unavailable on ${event.method} ${event.path}:`, (error as Error).message)
   setResponseStatus(event, 503, 'Service unavailable')
-  setResponseHeader(event, 'retry-after', '5')
+  setResponseHeader(event, 'retry-after', 5)
   setResponseHeader(event, 'content-type', 'application/json')
   setResponseHeader(event, 'cache-control', 'no-store')
   return send(event, JSON.stringify({ statusCode: 503, statusMessage: 'Service unavailable', message: DATABASE_DOWN_MESSAGE }))

@@ -66,7 +66,8 @@ describe('the database stops', () => {
       for (const [i, res] of answers.entries()) {
         if (res.status !== 201) expectUnavailable(res, `guest ${i}`)
       }
-      expectUnavailable(await within(10_000, 'a read while down', new Client().get('/api/flights/published')), 'flights while down')
+      // (the public flight list may still answer from its 5 s cache; the venue is read live)
+      expectUnavailable(await within(10_000, 'a read while down', new Client().get('/api/venue')), 'venue while down')
       expectUnavailable(await within(10_000, 'a sign-in while down', new Client().signIn('guest@saltmarsh.test', 'whatever-password')), 'sign-in while down')
       expectUnavailable(await within(10_000, 'a booking while down', guests[0]!.client.post('/api/bookings', bookingBody(session.id, guests[0]!, 1))), 'booking while down')
     }
