@@ -5,8 +5,8 @@
  */
 import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
-import { computeFilm, ethanolGrams, flightTotals } from '../server/science'
-import { buildFlightCard } from '../server/cards/cardData'
+import { computeFilm, ethanolGrams, flightTotals } from '../shared/science'
+import { buildFlightCard } from '../shared/cards'
 import { renderCardsPdf } from '../server/cards/cardPdf'
 
 const fontDir = resolve(import.meta.dirname, '../node_modules/@fontsource/lora/files')

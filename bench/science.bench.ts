@@ -2,7 +2,7 @@
  * Timing of the glass model (not a test). Run: npx tsx bench/science.bench.ts
  * Prints the median wall time of computeCurve (201 points) and of one computeFilm call.
  */
-import { computeCurve, computeFilm } from '../server/science'
+import { computeCurve, computeFilm } from '../shared/science'
 
 const REPETITIONS = 200
 const WARM_UP = 20

@@ -1,4 +1,4 @@
-import type { CurvePoint } from '~~/server/science'
+import type { CurvePoint } from '#shared/science'
 
 /** One-sentence reading of the curve: where the index peaks and where it falls back to zero. */
 export function filmCurveSummary(curve: CurvePoint[], tempLabel: string): string {

@@ -2,7 +2,7 @@ import { z } from '#shared/schemas/zod'
 import type { Allergen, ProductKind, ProductStatus } from '#shared/products'
 import { measurementSchema, productCreateSchema, productPatchSchema } from '#shared/schemas/products'
 import { fromDisplayTemp, toDisplayTemp } from '#shared/pours'
-import { TEMP_RANGE_C } from '~~/server/science/ranges'
+import { TEMP_RANGE_C } from '#shared/science/ranges'
 import type { Product } from './useProducts'
 
 // The transforms below hand the schema values it has yet to check (an empty box is undefined); the

@@ -19,7 +19,17 @@ fi
 
 build() {
   echo "[setup] building the app…"
-  npx nuxt build > .data/build.log 2>&1 || { tail -n 40 .data/build.log; echo "[setup] build failed; full log in .data/build.log"; exit 1; }
+  bash scripts/build.sh
+}
+
+# The gates before any test: lint (ESLint with the house style and the contract rules, then knip
+# for unused exports and files) and the type check (vue-tsc over app, server and shared).
+gates() {
+  echo "[gates] lint…"
+  npx eslint . || { echo "[gates] lint failed (npm run lint)"; exit 1; }
+  npx knip --no-progress || { echo "[gates] unused exports or files (npm run lint)"; exit 1; }
+  echo "[gates] typecheck…"
+  npx nuxt typecheck || { echo "[gates] typecheck failed (npm run typecheck)"; exit 1; }
 }
 mkdir -p .data
 
@@ -29,6 +39,8 @@ case "$mode" in
     exec npx tsx scripts/demo.ts
     ;;
   test)
+    # LARMOIR_SKIP_GATES=1 skips lint and typecheck while iterating on one test file; CI never sets it.
+    [ "${LARMOIR_SKIP_GATES:-}" = 1 ] || gates
     build
     exec npx vitest run "$@"
     ;;

@@ -32,10 +32,10 @@ export interface LabSheetCheck {
 }
 
 /** One line of the preview stream: progress while checking, then the whole result. */
-export type LabSheetStreamLine =
-  | { type: 'progress', done: number, total: number }
-  | { type: 'result', result: LabSheetCheck }
-  | { type: 'error', message: string }
+export type LabSheetStreamLine
+  = | { type: 'progress', done: number, total: number }
+    | { type: 'result', result: LabSheetCheck }
+    | { type: 'error', message: string }
 
 export const LAB_SHEET_MAX_BYTES = 5 * 1024 * 1024
 export const LAB_SHEET_MAX_ROWS = 20_000

@@ -1,5 +1,5 @@
 import type { ProductKind } from './products'
-import { ML_PER_US_FL_OZ, celsiusToFahrenheit, fahrenheitToCelsius } from '../server/science/standardDrinks'
+import { ML_PER_US_FL_OZ, celsiusToFahrenheit, fahrenheitToCelsius } from './science/standardDrinks'
 
 /**
  * Default tasting-pour volumes by kind, mL, offered when a pour is added and used for the

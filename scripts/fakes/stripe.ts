@@ -254,10 +254,10 @@ interface SessionState {
 }
 
 interface PaymentInput { card: string, expiry?: string, cvc?: string, name?: string }
-type PaymentOutcome =
-  | { kind: 'paid', redirect: string }
-  | { kind: 'declined', message: string }
-  | { kind: 'invalid', message: string, status: number }
+type PaymentOutcome
+  = | { kind: 'paid', redirect: string }
+    | { kind: 'declined', message: string }
+    | { kind: 'invalid', message: string, status: number }
 
 export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFake> {
   const now = opts.now ?? Date.now

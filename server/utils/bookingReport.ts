@@ -30,9 +30,9 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery) {
   const b = tables.bookings
   const rows = sessions.length
     ? await useDb().select({ b, guestName: tables.users.name, guestEmail: tables.users.email }).from(b)
-      .innerJoin(tables.users, eq(tables.users.id, b.userId))
-      .where(inArray(b.sessionId, sessions.map(x => x.id)))
-      .orderBy(asc(b.sessionId), asc(b.createdAt))
+        .innerJoin(tables.users, eq(tables.users.id, b.userId))
+        .where(inArray(b.sessionId, sessions.map(x => x.id)))
+        .orderBy(asc(b.sessionId), asc(b.createdAt))
     : []
   const now = Date.now()
   const out = sessions.map((session) => {

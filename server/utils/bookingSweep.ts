@@ -92,4 +92,3 @@ async function queueReminders(): Promise<number> {
   if (queued) kickOutbox()
   return queued
 }
-

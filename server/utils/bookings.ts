@@ -22,9 +22,6 @@ export function newBookingReference(): string {
   return out
 }
 
-const DEADLOCK = 1213
-const LOCK_WAIT_TIMEOUT = 1205
-
 /**
  * A transaction for seats and payments. Correctness comes from the session row lock every path
  * takes first, so READ COMMITTED is enough and avoids InnoDB's gap locks, which would make holds
@@ -37,9 +34,7 @@ export async function bookingTransaction<T>(fn: (tx: Tx) => Promise<T>): Promise
       return await useDb().transaction(fn, { isolationLevel: 'read committed' })
     }
     catch (err) {
-      const e = err as { errno?: number, cause?: { errno?: number } }
-      const errno = e.errno ?? e.cause?.errno
-      if ((errno === DEADLOCK || errno === LOCK_WAIT_TIMEOUT) && attempt < 4) {
+      if (isRetryableLockError(err) && attempt < 4) {
         await new Promise(r => setTimeout(r, 20 * attempt + Math.random() * 30))
         continue
       }

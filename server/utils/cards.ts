@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto'
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import { DateTime } from 'luxon'
 import { renderCardsPdf, type CardFonts, type CardPaper } from '../cards/cardPdf'
-import { buildFlightCard, type FlightCard } from '../cards/cardData'
+import { buildFlightCard, type FlightCard } from '../../shared/cards'
 import type { Venue } from '../db/schema/venues'
 import type { TastingSession } from '../db/schema/sessions'
 

@@ -73,15 +73,6 @@ export function productView(p: ProductWithMeasurement & { history?: ProductMeasu
 }
 export type ProductView = ReturnType<typeof productView>
 
-/**
- * True when MariaDB's unique index refused a row: two saves raced for one product code after both
- * checked it was free. Routes turn it into the same 409 as the check.
- */
-export function isDuplicateKey(err: unknown): boolean {
-  const e = err as { code?: string, cause?: { code?: string } } | null
-  return e?.code === 'ER_DUP_ENTRY' || e?.cause?.code === 'ER_DUP_ENTRY'
-}
-
 export function duplicateCodeError(code: string) {
   return createError({ statusCode: 409, statusMessage: 'Duplicate code', message: `Another product already uses the code ${code}.`, data: { fields: { code: 'Another product already uses this code.' } } })
 }

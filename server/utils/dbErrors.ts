@@ -25,8 +25,32 @@ export function isDatabaseDown(error: unknown): boolean {
 
 export const DATABASE_DOWN_MESSAGE = 'The database is not answering. Please try again in a moment.'
 
-/** True when a query failed on a unique index (MySQL/MariaDB ER_DUP_ENTRY, errno 1062). */
-export function isDuplicateKey(err: unknown): boolean {
-  const e = err as { errno?: number, code?: string, cause?: { errno?: number, code?: string } }
-  return e.errno === 1062 || e.code === 'ER_DUP_ENTRY' || e.cause?.errno === 1062 || e.cause?.code === 'ER_DUP_ENTRY'
+/**
+ * What a failed query means, for the few errors a route handles itself: MariaDB's error numbers
+ * (1062 ER_DUP_ENTRY, 1213 ER_LOCK_DEADLOCK, 1205 ER_LOCK_WAIT_TIMEOUT; MariaDB knowledge base,
+ * "MariaDB Error Codes"). Drizzle wraps the driver's error, so the chain of causes is searched.
+ */
+export type DbErrorKind = 'duplicate_key' | 'deadlock' | 'lock_wait_timeout'
+
+const ERRNO_KINDS: Record<number, DbErrorKind> = { 1062: 'duplicate_key', 1213: 'deadlock', 1205: 'lock_wait_timeout' }
+const CODE_KINDS: Record<string, DbErrorKind> = { ER_DUP_ENTRY: 'duplicate_key', ER_LOCK_DEADLOCK: 'deadlock', ER_LOCK_WAIT_TIMEOUT: 'lock_wait_timeout' }
+
+export function dbErrorKind(error: unknown): DbErrorKind | null {
+  let e: unknown = error
+  for (let depth = 0; e && typeof e === 'object' && depth < 6; depth++) {
+    const { errno, code, cause } = e as { errno?: unknown, code?: unknown, cause?: unknown }
+    const kind = (typeof errno === 'number' ? ERRNO_KINDS[errno] : undefined) ?? (typeof code === 'string' ? CODE_KINDS[code] : undefined)
+    if (kind) return kind
+    e = cause
+  }
+  return null
+}
+
+/** True when a query failed on a unique index. */
+export const isDuplicateKey = (error: unknown): boolean => dbErrorKind(error) === 'duplicate_key'
+
+/** True when the server chose this transaction as a deadlock's victim or its lock wait ran out: run it again. */
+export const isRetryableLockError = (error: unknown): boolean => {
+  const kind = dbErrorKind(error)
+  return kind === 'deadlock' || kind === 'lock_wait_timeout'
 }

@@ -2,7 +2,7 @@ import { and, asc, count, eq, inArray } from 'drizzle-orm'
 import type { Venue } from '../db/schema/venues'
 import type { Flight, Glass } from '../db/schema/flights'
 import type { PourInput } from '../../shared/schemas/flights'
-import { flightTotals } from '../science'
+import { flightTotals } from '../../shared/science'
 
 export interface PourSpec { productId: number, volumeMl: number, glassId: number, servingTempC: number, note?: string | null }
 

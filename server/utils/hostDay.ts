@@ -43,9 +43,9 @@ export async function hostDay(venue: Venue, user: CurrentUser, date: string, now
   const ids = sessions.map(r => r.s.id)
   const parties = ids.length
     ? await db.select({ b: tables.bookings, c: tables.checkIns }).from(tables.bookings)
-      .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, tables.bookings.id))
-      .where(and(inArray(tables.bookings.sessionId, ids), inArray(tables.bookings.state, ON_THE_LIST)))
-      .orderBy(asc(tables.bookings.contactName))
+        .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, tables.bookings.id))
+        .where(and(inArray(tables.bookings.sessionId, ids), inArray(tables.bookings.state, ON_THE_LIST)))
+        .orderBy(asc(tables.bookings.contactName))
     : []
   return {
     date: day.toISODate()!,

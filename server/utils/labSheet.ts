@@ -1,6 +1,6 @@
 import Papa from 'papaparse'
 import { eq } from 'drizzle-orm'
-import { z } from 'zod'
+import type { z } from 'zod'
 import { LAB_SHEETS, LAB_SHEET_MAX_ROWS, type LabSheetCheck, type LabSheetKind, type LabSheetRow } from '../../shared/labSheet'
 import { PRODUCT_KINDS, PRODUCT_KIND_LABELS, ALLERGENS, type ProductKind } from '../../shared/products'
 import { measurementSchema, productCreateSchema } from '../../shared/schemas/products'
@@ -241,7 +241,7 @@ export async function commitLabSheet(checked: CheckedSheet, lines: number[], ven
     const rows = await tx.select({ id: tables.products.id, code: tables.products.code }).from(tables.products)
       .where(eq(tables.products.venueId, venueId))
     for (const r of rows) ids.set(r.code.toLowerCase(), r.id)
-    const measurements = chosen.map(c => {
+    const measurements = chosen.map((c) => {
       const m = c.measurement ?? c.product!.measurement
       return { ...m, notes: m.notes ?? null, productId: ids.get(c.code.toLowerCase())! }
     })

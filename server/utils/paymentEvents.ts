@@ -2,12 +2,6 @@ import { createHash } from 'node:crypto'
 import { eq } from 'drizzle-orm'
 import type Stripe from 'stripe'
 
-/** MariaDB's duplicate-key error, however drizzle wraps it. */
-export function isDuplicateKey(err: unknown): boolean {
-  const e = err as { code?: string, errno?: number, cause?: { code?: string, errno?: number } }
-  return e?.code === 'ER_DUP_ENTRY' || e?.errno === 1062 || e?.cause?.code === 'ER_DUP_ENTRY' || e?.cause?.errno === 1062
-}
-
 const idOf = (v: string | { id: string } | null | undefined) => (typeof v === 'string' ? v : v?.id ?? null)
 
 /** The booking an event is about: by checkout session or payment intent we stored, else by metadata. */

@@ -56,4 +56,3 @@ export function verifyStripeEvent(raw: Buffer | string | undefined, signature: s
 export function isFinalStripeError(err: unknown): boolean {
   return err instanceof Stripe.errors.StripeInvalidRequestError
 }
-

@@ -1,4 +1,4 @@
-import { computeFilm, ethanolGrams, type FilmResult } from '../science'
+import { computeFilm, ethanolGrams, type FilmResult } from '../../shared/science'
 import type { Venue } from '../db/schema/venues'
 
 export interface PourNumbers {

@@ -24,6 +24,7 @@ async function parseWith<S extends z.ZodType>(schema: S, value: unknown): Promis
  * (Unicode TR #9; CVE-2021-42574), and lone surrogates, which are not text at all and which MariaDB's
  * utf8mb4 cannot store.
  */
+// eslint-disable-next-line no-control-regex -- these control characters are exactly what the pattern refuses
 const FORBIDDEN_TEXT = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u202A-\u202E\u2066-\u2069]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/
 const TEXT_MESSAGE = 'Remove the control or text-direction characters from this text.'
 

@@ -1,6 +1,6 @@
 import { z } from './zod'
 import { POURS_MAX, POURS_MIN } from '../flights'
-import { TEMP_RANGE_C, WALL_ANGLE_RANGE_DEG } from '../../server/science/ranges'
+import { TEMP_RANGE_C, WALL_ANGLE_RANGE_DEG } from '../science/ranges'
 
 export const glassSchema = z.object({
   name: z.string({ error: 'Name the glass.' }).trim().min(1, { error: 'Name the glass.' }).max(80, { error: 'Use at most 80 characters.' }),

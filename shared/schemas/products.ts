@@ -1,6 +1,6 @@
 import { z } from './zod'
 import { ALLERGENS, PRODUCT_KINDS, PRODUCT_STATUSES } from '../products'
-import { ABV_RANGE_PCT_VOL, SUGAR_RANGE_G_L, TEMP_RANGE_C } from '../../server/science/ranges'
+import { ABV_RANGE_PCT_VOL, SUGAR_RANGE_G_L, TEMP_RANGE_C } from '../science/ranges'
 import { isoDateField } from './common'
 
 const num = (label: string, min: number, max: number, unit: string) =>

@@ -1,5 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { inject } from 'vitest'
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import type { BrowserContext } from 'playwright-core'
 import { openBrowser, shot, signInThroughForm } from '../support/browser'
 import { uniqueEmail } from '../support/http'
@@ -84,7 +83,7 @@ describe('a guest books and pays through the pages', () => {
     await page.getByRole('button', { name: /^Pay / }).click()
 
     await page.waitForURL(/\/bookings\/\d+\?paid=1/)
-    await page.getByRole('heading', { name: "You're booked" }).waitFor({ timeout: 20_000 })
+    await page.getByRole('heading', { name: 'You\'re booked' }).waitFor({ timeout: 20_000 })
     reference = (await page.locator('[data-reference]').innerText()).trim()
     expect(reference).toMatch(/^[0-9A-HJKMNP-TV-Z]{10}$/)
     await shot(page, 'booking-confirmation')
@@ -107,12 +106,12 @@ describe('a guest books and pays through the pages', () => {
     await page.getByText(reference).first().waitFor()
     await shot(page, 'booking-my-bookings-phone')
     await page.getByRole('link', { name: 'Details' }).first().click()
-    await page.getByRole('heading', { name: "You're booked" }).waitFor()
+    await page.getByRole('heading', { name: 'You\'re booked' }).waitFor()
     await shot(page, 'booking-confirmation-phone')
     await page.close()
   })
 
-  it("shows the manager the guest's booking in the bookings view", { timeout: 60_000 }, async () => {
+  it('shows the manager the guest\'s booking in the bookings view', { timeout: 60_000 }, async () => {
     const manager = await openBrowser()
     const page = await manager.context.newPage()
     await signInThroughForm(page, 'manager@saltmarsh.test', DEMO_PASSWORD)

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { Client } from '../support/http'
+import type { Client } from '../support/http'
 import { signedIn } from '../support/people'
 import { withDb } from '../support/db'
 import { bookAndPay, newGuest, newSession } from '../support/booking'

@@ -92,7 +92,7 @@ describe('products through the browser, as the manager on a tablet', () => {
     await page.getByText('Saved. The figures on this page').waitFor()
     await page.getByText('2.0 fl oz at 59 °F').waitFor()
     const id = Number(new URL(page.url()).pathname.split('/').pop())
-    const saved = await page.evaluate(async (pid) => (await fetch(`/api/products/${pid}`)).json(), id)
+    const saved = await page.evaluate(async pid => (await fetch(`/api/products/${pid}`)).json(), id)
     expect(saved.servingTempC).toBeCloseTo(15, 9) // 59 °F = 15 °C (°C = (°F − 32) × 5/9, exact)
     expect(saved.costPerBottleMinor).toBe(1420)
     await page.getByRole('button', { name: 'Save changes' }).click()

@@ -36,6 +36,7 @@ const ODD_TEXT: [string, string, boolean][] = [
   ['right-to-left override', 'Tide\u202Ewater', true],
   ['emoji', 'Tidewater 🍷🥂', false],
 ]
+// eslint-disable-next-line no-control-regex -- the control characters the server must refuse
 const BAD_TEXT = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u202A-\u202E\u2066-\u2069]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/
 
 const fx = { flightId: 0, productId: 0, glassId: 0, sessionId: 0, staffId: 0, draftFlightId: 0, guestDob: '1990-05-14' }

@@ -1,7 +1,6 @@
-import { afterEach, beforeAll, describe, expect, it } from 'vitest'
+import { afterEach, beforeAll, describe, expect, it, inject } from 'vitest'
 import Papa from 'papaparse'
 import Stripe from 'stripe'
-import { inject } from 'vitest'
 import { Client } from '../support/http'
 import { countRows, withDb } from '../support/db'
 import { waitForMail } from '../support/mail'
@@ -282,7 +281,7 @@ describe('what the booking form must get right', () => {
 })
 
 describe('my bookings', () => {
-  it("another guest's booking answers 404, like a missing one", async () => {
+  it('another guest\'s booking answers 404, like a missing one', async () => {
     const session = await newSession(manager)
     const owner = await newGuest('owner')
     const paid = await bookAndPay(owner, session.id)

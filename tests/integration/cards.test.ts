@@ -128,4 +128,3 @@ describe('public pour page', () => {
     expect((await anon.get(`/api/pours/${draft.body.id}/1`)).status).toBe(404)
   })
 })
-

@@ -4,7 +4,7 @@ import { countRows } from '../support/db'
 import { removeProducts, runTag } from '../support/labSheets'
 import { DEMO_PASSWORD, DEMO_PRODUCTS } from '../../server/demo/data'
 import { DEFAULT_TASTING_POUR_ML } from '../../shared/pours'
-import { computeFilm } from '../../server/science'
+import { computeFilm } from '../../shared/science'
 
 const as = async (email: string) => {
   const c = new Client()

@@ -35,7 +35,7 @@ describe('the booking state diagram', () => {
 })
 
 describe('booking references and money', () => {
-  it("uses Crockford's base32 alphabet", () => {
+  it('uses Crockford\'s base32 alphabet', () => {
     expect(REFERENCE_ALPHABET).toBe('0123456789ABCDEFGHJKMNPQRSTVWXYZ') // Crockford, "Base32", crockford.com/base32.html
     expect(REFERENCE_ALPHABET).toHaveLength(32)
   })

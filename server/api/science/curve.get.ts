@@ -1,4 +1,4 @@
-import { computeCurve } from '../../science'
+import { computeCurve } from '../../../shared/science'
 import { curveQuerySchema } from '../../../shared/schemas/science'
 
 /** σ of the wine and of its evaporated film, and the index, at 201 ABV points from 0 to 100 % vol. */

@@ -1,4 +1,4 @@
-import { computeFilm, describePour } from '../../science'
+import { computeFilm, describePour } from '../../../shared/science'
 import { filmQuerySchema } from '../../../shared/schemas/science'
 
 /** Every intermediate quantity of the glass model for one pour, each with its unit in its name. */

@@ -1,4 +1,4 @@
-import { computeFilm, describePour, DEFAULT_WALL_ANGLE_DEG } from '../../science'
+import { computeFilm, describePour, DEFAULT_WALL_ANGLE_DEG } from '../../../shared/science'
 
 /**
  * The venue's active products as the glass model sees them at their serving temperature, for the

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest'
 import fc from 'fast-check'
-import { INDEX_REFERENCE, filmActivityIndex, findIndexReference } from '../../../server/science/activityIndex'
-import { modelAzeotropeAt1atm } from '../../../server/science/glassModel'
+import { INDEX_REFERENCE, filmActivityIndex, findIndexReference } from '../../../shared/science/activityIndex'
+import { modelAzeotropeAt1atm } from '../../../shared/science/glassModel'
 
 describe('film activity index', () => {
   it('is anchored at the 20 °C maximum', () => {

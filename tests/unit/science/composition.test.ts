@@ -10,7 +10,7 @@ import {
   massFractionFromMoleFraction,
   moleFractionFromMassFraction,
   solventAbv,
-} from '../../../server/science/composition'
+} from '../../../shared/science/composition'
 
 describe('OIML R 22 density', () => {
   it('reproduces the end points at 20 °C', () => {

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest'
 import fc from 'fast-check'
-import { massFractionFromAbv, meanMolarMass_g_mol, moleFractionFromMassFraction } from '../../../server/science/composition'
-import { FILM_MASS_LOSS_FRACTION, evaporationFlux, filmComposition, rayleighLnMoleRatio } from '../../../server/science/film'
+import { massFractionFromAbv, meanMolarMass_g_mol, moleFractionFromMassFraction } from '../../../shared/science/composition'
+import { FILM_MASS_LOSS_FRACTION, evaporationFlux, filmComposition, rayleighLnMoleRatio } from '../../../shared/science/film'
 
 const xOfAbv = (abv: number): number => moleFractionFromMassFraction(massFractionFromAbv(abv))
 

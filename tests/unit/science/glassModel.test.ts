@@ -8,7 +8,7 @@ import {
   computeFilm,
   modelAzeotropeAt1atm,
   validateFilmInputs,
-} from '../../../server/science'
+} from '../../../shared/science'
 
 /** Every number in a result, recursively, with its path. */
 function numbers(value: unknown, path = ''): [string, number][] {
@@ -79,8 +79,8 @@ describe('validateFilmInputs', () => {
 
   it('reports each bad field with a readable message', () => {
     const issues = validateFilmInputs({ abvPctVol: 120, tempC: 'warm', wallAngleDeg: 0 })
-    expect(issues.map((i) => i.field).sort()).toEqual(['abvPctVol', 'sugarGL', 'tempC', 'wallAngleDeg'])
-    expect(issues.find((i) => i.field === 'abvPctVol')?.message).toBe(
+    expect(issues.map(i => i.field).sort()).toEqual(['abvPctVol', 'sugarGL', 'tempC', 'wallAngleDeg'])
+    expect(issues.find(i => i.field === 'abvPctVol')?.message).toBe(
       `abvPctVol must be between ${ABV_RANGE_PCT_VOL.min} and ${ABV_RANGE_PCT_VOL.max} % vol`,
     )
   })

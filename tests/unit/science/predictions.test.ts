@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest'
-import { GRAVITY_M_S2 } from '../../../server/science/constants'
-import { computeFilm } from '../../../server/science/glassModel'
-import { QUALITY_DISCLAIMER, describePour, predictTears } from '../../../server/science/predictions'
+import { GRAVITY_M_S2 } from '../../../shared/science/constants'
+import { computeFilm } from '../../../shared/science/glassModel'
+import { QUALITY_DISCLAIMER, describePour, predictTears } from '../../../shared/science/predictions'
 
 const wine = { abvPctVol: 12.5, tempC: 18, sugarGL: 3 }
 

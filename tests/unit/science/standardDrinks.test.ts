@@ -10,8 +10,8 @@ import {
   standardDrinks,
   ukUnits,
   usFlOzToMl,
-} from '../../../server/science/standardDrinks'
-import { ETHANOL_DENSITY_20C_KG_M3 } from '../../../server/science/composition'
+} from '../../../shared/science/standardDrinks'
+import { ETHANOL_DENSITY_20C_KG_M3 } from '../../../shared/science/composition'
 
 describe('standard drinks', () => {
   it('uses the published definitions', () => {

@@ -1,13 +1,13 @@
 import { describe, it, expect } from 'vitest'
 import fc from 'fast-check'
-import { massFractionFromAbv, moleFractionFromMassFraction } from '../../../server/science/composition'
+import { massFractionFromAbv, moleFractionFromMassFraction } from '../../../shared/science/composition'
 import {
   SURFACE_TENSION_FIT_DATA_20C,
   SURFACE_TENSION_FIT_MAX_RESIDUAL_MN_M,
   surfaceTensionEthanol_mN_m,
   surfaceTensionMixture_mN_m,
   surfaceTensionWater_mN_m,
-} from '../../../server/science/surfaceTension'
+} from '../../../shared/science/surfaceTension'
 
 const xOfAbv = (abv: number): number => moleFractionFromMassFraction(massFractionFromAbv(abv))
 

@@ -8,7 +8,7 @@ import {
   sugarViscosityFactor,
   viscosityHydroalcoholic_mPa_s,
   viscosity_mPa_s,
-} from '../../../server/science/viscosity'
+} from '../../../shared/science/viscosity'
 
 describe('ethanol–water viscosity', () => {
   it('fits Bingham & Jackson at 20 °C within 0.39 %', () => {

@@ -9,7 +9,7 @@ import {
   saturationPressureEthanol_Pa,
   saturationPressureWater_Pa,
   vapourState,
-} from '../../../server/science/vle'
+} from '../../../shared/science/vle'
 
 const K = 273.15
 

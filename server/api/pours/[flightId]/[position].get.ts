@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { describePour } from '../../../science'
-import { buildFlightCard } from '../../../cards/cardData'
+import { describePour } from '../../../../shared/science'
+import { buildFlightCard } from '../../../../shared/cards'
 
 const params = z.object({
   flightId: z.coerce.number({ error: 'The flight id must be a number.' }).int().positive({ error: 'The flight id must be positive.' }),

@@ -88,7 +88,7 @@ export function filmActivityIndex(abvPctVol: number, tempC: number, sugarGL = 0)
  * Recomputes the scale's anchor: golden-section search of D over 0–100 % vol at 20 °C, 0 g/L, after
  * a 1 % vol scan to bracket the maximum. Used by the tests to check INDEX_REFERENCE.
  */
-export function findIndexReference(): { drive: number; abvPctVol: number } {
+export function findIndexReference(): { drive: number, abvPctVol: number } {
   const D = (abv: number): number =>
     filmActivityFromMoleFraction(composition(abv, INDEX_ANCHOR_TEMP_C, 0).solventMoleFraction, INDEX_ANCHOR_TEMP_C).drive
   let best = 0

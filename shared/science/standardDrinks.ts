@@ -79,7 +79,7 @@ export interface FlightTotals {
   /** Standard drinks under the chosen definition. */
   standardDrinks: number
   /** Per pour: ethanol grams and standard drinks, in input order. */
-  pours: { ethanolGrams: number; standardDrinks: number }[]
+  pours: { ethanolGrams: number, standardDrinks: number }[]
 }
 
 /** Totals for a flight of pours. Same sources and ranges as ethanolGrams and standardDrinks. */

@@ -110,12 +110,13 @@ export interface InputIssue {
  */
 export function validateFilmInputs(input: Partial<Record<keyof FilmInputs, unknown>>): InputIssue[] {
   const issues: InputIssue[] = []
-  const check = (field: keyof FilmInputs, range: { min: number; max: number }, unit: string, optional = false): void => {
+  const check = (field: keyof FilmInputs, range: { min: number, max: number }, unit: string, optional = false): void => {
     const v = input[field]
     if (v === undefined && optional) return
     if (typeof v !== 'number' || !Number.isFinite(v)) {
       issues.push({ field, message: `${field} must be a number` })
-    } else if (v < range.min || v > range.max) {
+    }
+    else if (v < range.min || v > range.max) {
       issues.push({ field, message: `${field} must be between ${range.min} and ${range.max} ${unit}` })
     }
   }
@@ -133,7 +134,7 @@ function assertInputs(abvPctVol: number, tempC: number, sugarGL: number): void {
 }
 
 /** The model's azeotrope at 1 atm (NRTL), for display next to the handbook value. */
-export function modelAzeotropeAt1atm(): { moleFraction: number; massFraction: number; abvPctVol: number; tempC: number } {
+export function modelAzeotropeAt1atm(): { moleFraction: number, massFraction: number, abvPctVol: number, tempC: number } {
   const a = findAzeotrope()
   if (!a) throw new Error('NRTL parameters give no azeotrope at 1 atm') // cannot happen with the published set
   const w = massFractionFromMoleFraction(a.x1)

@@ -3,10 +3,10 @@
  * pour is, how much ethanol it holds, what the glass model predicts and what to look for.
  * Pure: the caller loads the flight and the venue.
  */
-import { describePour, type FilmResult } from '../science'
-import { formatTemperature, formatVolume } from '../../shared/pours'
-import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from '../../shared/products'
-import type { GlassShape } from '../../shared/glassDiagram'
+import { describePour, type FilmResult } from './science'
+import { formatTemperature, formatVolume } from './pours'
+import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
+import type { GlassShape } from './glassDiagram'
 
 export interface CardVenue {
   name: string

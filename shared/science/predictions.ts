@@ -148,7 +148,7 @@ export function predictTears(input: TearPhysicsInput): TearPrediction {
 
 /** The fields of a computeFilm result that describePour reads. */
 export interface PourDescriptionInput {
-  inputs: { abvPctVol: number; tempC: number; sugarGL: number }
+  inputs: { abvPctVol: number, tempC: number, sugarGL: number }
   solventMoleFraction: number
   atOrBeyondAzeotrope: boolean
   azeotropeAbvPctVol: number | null
@@ -190,8 +190,8 @@ function fmtTemp(tempC: number, unit: 'C' | 'F'): string {
 }
 
 /** The sentence every description ends with. */
-export const QUALITY_DISCLAIMER =
-  'Tears say nothing about quality: they come from alcohol and evaporation, and sugar only slows them — it does not make them.'
+export const QUALITY_DISCLAIMER
+  = 'Tears say nothing about quality: they come from alcohol and evaporation, and sugar only slows them — it does not make them.'
 
 /**
  * A few short sentences for a guest, built from a computeFilm result: what to look for (climbing
@@ -213,18 +213,21 @@ export function describePour(result: PourDescriptionInput, options: DescribeOpti
       `${at} there is no alcohol to evaporate, so the liquid left on the glass keeps the same surface tension as the rest: expect no climbing film and no tears.`,
       'Any drops that run down after a swirl are simply draining under gravity.',
     )
-  } else if (result.atOrBeyondAzeotrope || !(result.deltaSigma_mN_m > NEGLIGIBLE_DELTA_SIGMA_MN_M)) {
+  }
+  else if (result.atOrBeyondAzeotrope || !(result.deltaSigma_mN_m > NEGLIGIBLE_DELTA_SIGMA_MN_M)) {
     const azeo = result.azeotropeAbvPctVol === null ? '' : ` (from about ${fmt(result.azeotropeAbvPctVol)} % ABV up, in this model)`
     out.push(
       `${at} water and ethanol leave the glass in nearly the proportion they are in the liquid${azeo}, so evaporation no longer makes the film on the wall more watery.`,
       'Its surface tension does not rise above the rest of the pour, so there is nothing to pull a film up the glass: no tears from this effect.',
     )
-  } else if (!p.tearsExpected || p.tearOnset_s === null || p.tearFallSpeed_mm_s === null || p.tearWidth_mm === null) {
+  }
+  else if (!p.tearsExpected || p.tearOnset_s === null || p.tearFallSpeed_mm_s === null || p.tearWidth_mm === null) {
     out.push(
       `${at} evaporation still makes the film on the glass slightly more watery, raising its surface tension by only ${fmt(result.deltaSigma_mN_m)} mN/m.`,
       `That pull can lift a film only about ${fmt(p.clearBandHeight_mm)} mm, inside the curve of the liquid's edge, so distinct tears are unlikely.`,
     )
-  } else {
+  }
+  else {
     out.push(
       `${at}, swirl and watch the glass: within about ${fmt(p.tearOnset_s)} s a clear film about ${fmt(p.filmThickness_um)} µm thick should climb roughly ${fmt(p.clearBandHeight_mm)} mm above the liquid, gather into a ridge, and drop back as tears about ${fmt(p.tearWidth_mm)} mm wide, sliding at around ${fmt(p.tearFallSpeed_mm_s)} mm/s.`,
       `Why: ethanol evaporates from that thin film faster than water, so the film turns more watery and its surface tension rises from ${result.surfaceTensionBulk_mN_m.toFixed(1)} to ${result.surfaceTensionFilm_mN_m.toFixed(1)} mN/m; the stronger pull of the film draws liquid up from below (the Gibbs–Marangoni effect) until the ridge grows too heavy and falls.`,

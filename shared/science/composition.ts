@@ -159,7 +159,7 @@ export function meanMolarMass_g_mol(moleFraction: number): number {
  * `capped` is true.
  * Valid ABV 0–100 % vol, sugar 0–400 g/L.
  */
-export function solventAbv(abvPctVol: number, sugarGL: number): { solventAbvPctVol: number; capped: boolean } {
+export function solventAbv(abvPctVol: number, sugarGL: number): { solventAbvPctVol: number, capped: boolean } {
   assertInRange('abvPctVol', abvPctVol, ABV_RANGE_PCT_VOL.min, ABV_RANGE_PCT_VOL.max, '% vol')
   assertInRange('sugarGL', sugarGL, SUGAR_RANGE_G_L.min, SUGAR_RANGE_G_L.max, 'g/L')
   const solventVolumeFraction = 1 - (SUGAR_APPARENT_SPECIFIC_VOLUME_CM3_G * sugarGL) / 1000
