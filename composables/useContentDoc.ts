@@ -1,44 +1,21 @@
 import type { ContentKind } from '#shared/content'
-
-export interface ContentDocView {
-  id: number | null
-  label: string
-  title: string
-  draftBody: string
-  publishedBody: string | null
-  status: 'draft' | 'published'
-  publishedAt: string | null
-  updatedAt: string | null
-  isDefault: boolean
-  defaultBody: string | null
-}
-export interface ContentRevision { id: number, action: 'save' | 'publish' | 'unpublish' | 'restore', title: string, body: string, createdAt: string, author: string | null }
+import type { ContentDocView, ContentRevision } from '#shared/types/content'
 
 /** One note or article in the editor: load, save the draft, publish, unpublish, restore. */
 export function useContentDoc(kind: ContentKind, subject: string) {
   const base = `/api/content/${kind}/${subject}`
   const doc = useFetch<ContentDocView>(base, { key: `content-${kind}-${subject}` })
   const revisions = useFetch<ContentRevision[]>(`${base}/revisions`, { key: `content-rev-${kind}-${subject}`, default: () => [] })
-  const message = ref('')
-  const error = ref('')
-  const busy = ref(false)
+  const { busy, message, error, run } = useAction()
 
-  async function act(path: string, method: 'PUT' | 'POST', body: Record<string, unknown> | undefined, done: string) {
-    busy.value = true
-    message.value = ''
-    error.value = ''
-    try {
-      doc.data.value = await $fetch<ContentDocView>(path, { method, body })
-      message.value = done
+  const act = (path: string, method: 'PUT' | 'POST', body: Record<string, unknown> | undefined, done: string) => run(
+    () => $fetch<ContentDocView>(path, { method, body }),
+    done,
+    async (view) => {
+      doc.data.value = view
       await revisions.refresh()
-    }
-    catch (err) {
-      error.value = readServerError(err).message
-    }
-    finally {
-      busy.value = false
-    }
-  }
+    },
+  )
 
   return {
     doc: doc.data,

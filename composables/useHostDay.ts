@@ -1,35 +1,12 @@
-import type { HostDay } from '~~/server/utils/hostDay'
-
-export type HostSession = HostDay['sessions'][number]
-export type HostParty = HostSession['parties'][number]
+import type { HostDay, HostParty, HostSession } from '#shared/types/host'
 
 /** The host's day for a venue-local date, and every door action on it (each refreshes the day). */
 export function useHostDay(date: Ref<string>) {
   const day = useFetch<HostDay>('/api/host/day', { key: 'host-day', query: computed(() => ({ date: date.value })) })
-  const message = ref('')
-  const error = ref('')
-  const busy = ref(false)
+  const { busy, message, error, run } = useAction()
   // Plain string URLs: the typed route inference of $fetch is too deep for these templates.
   const post = (url: string, body?: Record<string, unknown>) => $fetch(url, { method: 'POST', body })
-
-  async function act(fn: () => Promise<unknown>, done: string) {
-    busy.value = true
-    message.value = ''
-    error.value = ''
-    try {
-      await fn()
-      message.value = done
-      await day.refresh()
-      return true
-    }
-    catch (err) {
-      error.value = readServerError(err).message
-      return false
-    }
-    finally {
-      busy.value = false
-    }
-  }
+  const act = async (fn: () => Promise<unknown>, done: string) => (await run(fn, done, () => day.refresh())) !== null
 
   return {
     day: day.data,

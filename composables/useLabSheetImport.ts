@@ -1,37 +1,15 @@
 import type { InjectionKey } from 'vue'
 import { LAB_SHEET_MAX_BYTES, type LabSheetCheck, type LabSheetKind, type LabSheetRow, type LabSheetStreamLine } from '#shared/labSheet'
 
-export type LabSheetPhase = 'choose' | 'checking' | 'checked' | 'importing' | 'imported'
+type LabSheetPhase = 'choose' | 'checking' | 'checked' | 'importing' | 'imported'
 
 /**
- * Reads a newline-delimited JSON response as it arrives and hands each parsed line to `onLine`.
- * A line can be split across chunks, so the unfinished tail waits for the next one.
- */
-export async function readNdjson<T>(body: ReadableStream<Uint8Array>, onLine: (line: T) => void): Promise<void> {
-  const reader = body.getReader()
-  const decoder = new TextDecoder()
-  let buffer = ''
-  for (;;) {
-    const { value, done } = await reader.read()
-    buffer += decoder.decode(value, { stream: !done })
-    let nl = buffer.indexOf('\n')
-    while (nl >= 0) {
-      const line = buffer.slice(0, nl).trim()
-      buffer = buffer.slice(nl + 1)
-      if (line) onLine(JSON.parse(line) as T)
-      nl = buffer.indexOf('\n')
-    }
-    if (done) break
-  }
-  if (buffer.trim()) onLine(JSON.parse(buffer) as T)
-}
-
-/**
- * The lab-sheet import, step by step: choose the kind and a CSV file (read in the browser), check
+ * The lab-sheet import, step by step (the import page calls this once; its step components read
+ * the same state with useLabSheetImportState): choose the kind and a CSV file (read in the browser), check
  * it on the server while its progress streams in, choose the rows from the preview, import them in
  * one go. Nothing is written until the last step, and then all chosen rows or none.
  */
-export function useLabSheetImport() {
+function labSheetImport() {
   const sheet = ref<LabSheetKind>('products')
   const fileName = ref('')
   const csv = ref('')
@@ -142,18 +120,18 @@ export function useLabSheetImport() {
   return { sheet, fileName, csv, phase, progress, check, rows, selected, validLines, errorCount, error, imported, isValid, pickFile, preview, toggle, selectAllValid, selectNone, commit, reset, startOver }
 }
 
-export type LabSheetImport = ReturnType<typeof useLabSheetImport>
+type LabSheetImport = ReturnType<typeof labSheetImport>
 const LAB_SHEET_IMPORT: InjectionKey<LabSheetImport> = Symbol('lab-sheet-import')
 
 /** The import page starts one import and shares it with its step components. */
-export function provideLabSheetImport(): LabSheetImport {
-  const state = useLabSheetImport()
+export function useLabSheetImport(): LabSheetImport {
+  const state = labSheetImport()
   provide(LAB_SHEET_IMPORT, state)
   return state
 }
 
 export function useLabSheetImportState(): LabSheetImport {
   const state = inject(LAB_SHEET_IMPORT)
-  if (!state) throw new Error('useLabSheetImportState() needs provideLabSheetImport() in a parent component.')
+  if (!state) throw new Error('useLabSheetImportState() needs useLabSheetImport() in a parent component.')
   return state
 }

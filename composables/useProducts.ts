@@ -1,27 +1,15 @@
-import type { InternalApi } from 'nitropack/types'
 import type { MeasurementInput } from '#shared/schemas/products'
+import type { ProductView } from '#shared/types/products'
 import { formatVolume, toDisplayTemp } from '#shared/pours'
-
-/** A product as the API returns it: fields, current measurement, history, derived figures. */
-export type Product = InternalApi['/api/products/:id']['get']
-export type ProductMeasurement = Product['current']
-
-export const productsKey = 'products'
-export const productKey = (id: number) => `product-${id}`
-
-/** Fraction digits of a currency's minor unit: 2 for USD and EUR, 0 for JPY. */
-export function currencyMinorDigits(currency: string): number {
-  return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2
-}
 
 /** The venue's products, with their current numbers and derived figures. */
 export function useProductList() {
-  return useFetch<Product[]>('/api/products', { key: productsKey, default: () => [] })
+  return useFetch<ProductView[]>('/api/products', { key: productsKey, default: () => [] })
 }
 
 /** One product with its measurement history, newest first. */
 export function useProduct(id: number) {
-  return useFetch<Product>(`/api/products/${id}`, { key: productKey(id) })
+  return useFetch<ProductView>(`/api/products/${id}`, { key: productKey(id) })
 }
 
 /**
@@ -33,18 +21,18 @@ export function useProductActions() {
     await refreshNuxtData([productsKey, productKey(id)])
   }
   return {
-    async create(body: unknown): Promise<Product> {
-      const product = await $fetch<Product>('/api/products', { method: 'POST', body: body as Record<string, unknown> })
+    async create(body: unknown): Promise<ProductView> {
+      const product = await $fetch<ProductView>('/api/products', { method: 'POST', body: body as Record<string, unknown> })
       await refreshNuxtData(productsKey)
       return product
     },
-    async save(id: number, patch: Record<string, unknown>): Promise<Product> {
-      const product = await $fetch<Product>(`/api/products/${id}`, { method: 'PATCH', body: patch })
+    async save(id: number, patch: Record<string, unknown>): Promise<ProductView> {
+      const product = await $fetch<ProductView>(`/api/products/${id}`, { method: 'PATCH', body: patch })
       await refreshAfter(id)
       return product
     },
-    async addMeasurement(id: number, body: MeasurementInput): Promise<Product> {
-      const product = await $fetch<Product>(`/api/products/${id}/measurements`, { method: 'POST', body })
+    async addMeasurement(id: number, body: MeasurementInput): Promise<ProductView> {
+      const product = await $fetch<ProductView>(`/api/products/${id}/measurements`, { method: 'POST', body })
       await refreshAfter(id)
       return product
     },

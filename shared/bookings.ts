@@ -10,8 +10,6 @@
  * has already run out (`expired ──late payment──▶ confirmed`), taken only while the seats are still
  * free. If they are not, the booking stays expired and the payment goes straight back.
  */
-import type { ProductKind } from './products'
-
 export const BOOKING_STATES = ['held', 'confirmed', 'checked_in', 'no_show', 'cancelled', 'refunded', 'expired'] as const
 export type BookingState = (typeof BOOKING_STATES)[number]
 
@@ -59,81 +57,3 @@ export const PARTY_MAX = 10
 /** Crockford's base32 alphabet: no I, L, O or U, so a code read aloud or typed is hard to get wrong. */
 export const REFERENCE_ALPHABET = '0123456789ABCDEFGHJKMNPQRSTVWXYZ'
 export const REFERENCE_LENGTH = 10
-
-/** Whole minor units → the currency's major units as a plain decimal string ("35.00", "3500" for JPY). */
-export function minorToDecimal(minor: number, currency: string): string {
-  const digits = new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2
-  return (minor / 10 ** digits).toFixed(digits)
-}
-
-/** A session as guests see it: when, price, seats left and whether it can still be booked. */
-export interface PublicSession {
-  id: number
-  flightId: number
-  flightName: string
-  startsAt: string
-  startsLocal: string | null
-  endsAt: string
-  durationMinutes: number
-  seats: number
-  seatsLeft: number
-  priceMinor: number
-  currency: string
-  bookingClosesAt: string
-  status: 'open' | 'closed' | 'cancelled'
-  bookable: boolean
-  /** Why it cannot be booked, in words for the guest; null when it can. */
-  closedReason: string | null
-}
-
-/** A flight on the public list. */
-export interface PublishedFlight {
-  id: number
-  name: string
-  summary: string
-  pourCount: number
-  kinds: ProductKind[]
-  standardDrinks: number
-  priceFromMinor: number | null
-  currency: string
-  nextSessions: PublicSession[]
-  sessionCount: number
-}
-
-/** A booking as its guest sees it. */
-export interface BookingView {
-  id: number
-  reference: string
-  state: BookingState
-  stateLabel: string
-  endReason: BookingEndReason | null
-  partySize: number
-  contactName: string
-  contactEmail: string
-  contactPhone: string
-  unitPriceMinor: number
-  amountMinor: number
-  amountPaidMinor: number
-  amountRefundedMinor: number
-  currency: string
-  holdExpiresAt: string
-  /** Where to finish paying, while the hold lasts. */
-  checkoutUrl: string | null
-  createdAt: string
-  confirmedAt: string | null
-  cancelledAt: string | null
-  refundedAt: string | null
-  cancelDeadline: string
-  canCancel: boolean
-  canRelease: boolean
-  session: {
-    id: number
-    flightId: number
-    flightName: string
-    startsAt: string
-    endsAt: string
-    durationMinutes: number
-    status: 'open' | 'closed' | 'cancelled'
-    upcoming: boolean
-  }
-}

@@ -7,6 +7,7 @@ import { describePour, type FilmResult } from './science'
 import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
 import type { GlassShape } from './glassDiagram'
+import type { FlightCard } from './types/cards'
 
 export interface CardVenue {
   name: string
@@ -54,7 +55,7 @@ export const ALLERGEN_LABELS: Record<Allergen, string> = {
 /** Why it happens, said once per card (each pour's own numbers are in its lines). */
 export const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film turns more watery and its surface tension rises above the wine\'s. That stronger pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears.'
 
-export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, guestName?: string | null, sessionLabel?: string | null }) {
+export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, guestName?: string | null, sessionLabel?: string | null }): FlightCard {
   const { venue, flight } = opts
   const tempUnit = venue.temperatureUnit === 'f' ? 'F' : 'C'
   const pours = flight.pours.map((p) => {
@@ -102,8 +103,6 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
     qrUrl: opts.publicUrl,
   }
 }
-
-export type FlightCard = ReturnType<typeof buildFlightCard>
 
 function round(v: number, digits: number) {
   const f = 10 ** digits

@@ -4,12 +4,10 @@ import { DEFAULT_TASTING_POUR_ML } from '#shared/pours'
 import type { ProductKind } from '#shared/products'
 import type { FlightStatus } from '#shared/flights'
 import { POURS_MAX } from '#shared/flights'
-import type { FlightView } from '~~/server/utils/flights'
+import type { FlightPreview, FlightView, GlassView } from '#shared/types/flights'
+import type { ProductView } from '#shared/types/products'
 
 export interface BuilderPour { key: number, productId: number, volumeMl: number, glassId: number, servingTempC: number, note: string | null }
-type Preview = Pick<FlightView, 'pours' | 'totals'>
-export interface ProductOption { id: number, name: string, kind: ProductKind, servingTempC: number, status: string, current: { abvPctVol: number } }
-export interface GlassOption { id: number, name: string, bowlDiameterMm: number, wallAngleDeg: number, fillHeightMm: number }
 
 /** Which glass a new pour of each kind goes into by default, by the glass's name. */
 const GLASS_FOR_KIND: Record<ProductKind, RegExp> = {
@@ -31,15 +29,15 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
   const locked = ref(false)
   const sessionCount = ref(0)
   const pours = ref<BuilderPour[]>([])
-  const preview = ref<Preview | null>(null)
+  const preview = ref<FlightPreview | null>(null)
   const previewError = ref('')
   const errors = ref<FieldErrors>({})
   const message = ref('')
   const error = ref('')
   const busy = ref(false)
   const dirty = ref(false)
-  const products = ref<ProductOption[]>([])
-  const glasses = ref<GlassOption[]>([])
+  const products = ref<ProductView[]>([])
+  const glasses = ref<GlassView[]>([])
 
   const canEditPours = computed(() => status.value === 'draft' || (status.value === 'published' && !locked.value))
   const canAddPour = computed(() => canEditPours.value && pours.value.length < POURS_MAX)
@@ -58,7 +56,7 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
   }
 
   async function loadOptions(fetcher: typeof $fetch) {
-    const [p, g] = await Promise.all([fetcher<ProductOption[]>('/api/products'), fetcher<GlassOption[]>('/api/glasses')])
+    const [p, g] = await Promise.all([fetcher<ProductView[]>('/api/products'), fetcher<GlassView[]>('/api/glasses')])
     products.value = p
     glasses.value = g
   }
@@ -127,7 +125,7 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
     }
     const mine = ++seq
     try {
-      const result = await $fetch<Preview>('/api/flights/preview', { method: 'POST', body: { pours: pours.value.map(strip) } })
+      const result = await $fetch<FlightPreview>('/api/flights/preview', { method: 'POST', body: { pours: pours.value.map(strip) } })
       if (mine === seq) {
         preview.value = result
         previewError.value = ''

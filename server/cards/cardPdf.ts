@@ -6,7 +6,7 @@
 import PDFDocument from 'pdfkit'
 import QRCode from 'qrcode'
 import { glassDiagramGeometry } from '../../shared/glassDiagram'
-import type { FlightCard } from '../../shared/cards'
+import type { FlightCard } from '../../shared/types/cards'
 
 export type CardPaper = 'a5' | 'half-letter'
 /** A5 is 148 × 210 mm; US half letter is 5.5 × 8.5 in (ISO 216; ANSI/ASME Y14.1), in PDF points. */

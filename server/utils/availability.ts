@@ -2,7 +2,7 @@ import { and, asc, eq, gt, inArray, sql, type SQL } from 'drizzle-orm'
 import { DateTime } from 'luxon'
 import type { TastingSession } from '../db/schema/sessions'
 import type { Venue } from '../db/schema/venues'
-import type { PublicSession } from '../../shared/bookings'
+import type { PublicSession } from '../../shared/types/sessions'
 
 /**
  * Seats taken in a session, as a correlated subquery: held (while the hold lasts), confirmed and

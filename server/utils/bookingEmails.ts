@@ -5,7 +5,7 @@ import type { Booking } from '../db/schema/bookings'
 import type { TastingSession } from '../db/schema/sessions'
 import type { MailMessage } from './mail'
 import type { OutboxAttachment } from '../db/schema/mail'
-import { minorToDecimal } from '../../shared/bookings'
+import { formatMoney } from '../../shared/money'
 
 /** What every booking e-mail needs to say where and when. */
 export interface BookingMailContext {
@@ -13,10 +13,6 @@ export interface BookingMailContext {
   booking: Pick<Booking, 'id' | 'reference' | 'partySize' | 'amountMinor' | 'amountPaidMinor' | 'amountRefundedMinor' | 'currency' | 'contactName' | 'contactEmail'>
   session: Pick<TastingSession, 'startsAt' | 'durationMinutes'>
   flightName: string
-}
-
-export function mailMoney(minor: number, currency: string): string {
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency }).format(Number(minorToDecimal(minor, currency)))
 }
 
 /** "Saturday, October 3, 2026 at 2:00 PM EDT": the session's start in the venue's zone, with the zone named. */
@@ -77,7 +73,7 @@ export async function confirmationEmail(c: BookingMailContext): Promise<MailMess
       'Your seats are booked and paid. We look forward to pouring for you.',
       '',
       ...whereAndWhen(c),
-      `Paid: ${mailMoney(c.booking.amountPaidMinor, c.booking.currency)}`,
+      `Paid: ${formatMoney(c.booking.amountPaidMinor, c.booking.currency)}`,
       '',
       `Bring photo ID: everyone in your party must be ${c.venue.legalAge} or older, and the host checks at the door.`,
       'Show the QR code attached to this e-mail (or tell us the reference) when you arrive. The calendar file adds the session to your calendar.',
@@ -104,7 +100,7 @@ export function cancellationEmail(c: BookingMailContext, why: 'guest' | 'venue')
         : 'Your booking is cancelled, as you asked. Your payment is being refunded in full.',
       '',
       ...whereAndWhen(c),
-      `To be refunded: ${mailMoney(c.booking.amountPaidMinor, c.booking.currency)}`,
+      `To be refunded: ${formatMoney(c.booking.amountPaidMinor, c.booking.currency)}`,
       '',
       'We will send another e-mail once the refund has gone through.',
       ...signature(c.venue),
@@ -115,11 +111,11 @@ export function cancellationEmail(c: BookingMailContext, why: 'guest' | 'venue')
 export function refundEmail(c: BookingMailContext): MailMessage {
   return {
     to: c.booking.contactEmail,
-    subject: `Refund sent: ${mailMoney(c.booking.amountRefundedMinor, c.booking.currency)} for booking ${c.booking.reference}`,
+    subject: `Refund sent: ${formatMoney(c.booking.amountRefundedMinor, c.booking.currency)} for booking ${c.booking.reference}`,
     text: [
       `Hello ${c.booking.contactName},`,
       '',
-      `We have refunded ${mailMoney(c.booking.amountRefundedMinor, c.booking.currency)} to the card you paid with. Banks usually show it within 5 to 10 days.`,
+      `We have refunded ${formatMoney(c.booking.amountRefundedMinor, c.booking.currency)} to the card you paid with. Banks usually show it within 5 to 10 days.`,
       '',
       ...whereAndWhen(c),
       ...signature(c.venue),
@@ -135,7 +131,7 @@ export function latePaymentRefundEmail(c: BookingMailContext, reason: string): M
     text: [
       `Hello ${c.booking.contactName},`,
       '',
-      `Your payment reached us after the time to pay had run out, and ${reason}. So the booking could not go ahead, and we are refunding ${mailMoney(c.booking.amountPaidMinor, c.booking.currency)} in full to the card you paid with.`,
+      `Your payment reached us after the time to pay had run out, and ${reason}. So the booking could not go ahead, and we are refunding ${formatMoney(c.booking.amountPaidMinor, c.booking.currency)} in full to the card you paid with.`,
       '',
       ...whereAndWhen(c),
       '',

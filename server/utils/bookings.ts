@@ -12,8 +12,9 @@ import type { bookingCreateSchema } from '../../shared/schemas/bookings'
 import { ageOn } from '../../shared/schemas/auth'
 import {
   BOOKING_STATE_LABELS, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, REFERENCE_LENGTH, SEAT_TAKING_STATES,
-  canTransition, type BookingEndReason, type BookingEvent, type BookingView,
+  canTransition, type BookingEndReason, type BookingEvent,
 } from '../../shared/bookings'
+import type { BookingView } from '../../shared/types/bookings'
 
 /** Ten characters of Crockford base32, 5 random bits each (a byte's low 5 bits are uniform). */
 export function newBookingReference(): string {

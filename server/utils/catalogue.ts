@@ -3,6 +3,7 @@ import type { Product, ProductMeasurement } from '../db/schema/products'
 import type { Venue } from '../db/schema/venues'
 import type { Role } from '../../shared/roles'
 import { DEFAULT_TASTING_POUR_ML } from '../../shared/pours'
+import type { MeasurementView, ProductView } from '../../shared/types/products'
 
 export interface ProductWithMeasurement extends Product { current: ProductMeasurement }
 
@@ -43,10 +44,10 @@ export async function loadProduct(venueId: number, id: number, history = false) 
  * derives from them for a default tasting pour at the product's serving temperature. The cost is
  * shown to managers only.
  */
-export function productView(p: ProductWithMeasurement & { history?: ProductMeasurement[] }, venue: Venue, role: Role) {
+export function productView(p: ProductWithMeasurement & { history?: ProductMeasurement[] }, venue: Venue, role: Role): ProductView {
   const pourMl = DEFAULT_TASTING_POUR_ML[p.kind]
   const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: p.servingTempC, volumeMl: pourMl }, venue)
-  const strip = (m: ProductMeasurement) => ({ id: m.id, abvPctVol: m.abvPctVol, residualSugarGL: m.residualSugarGL, lab: m.lab, method: m.method, measuredOn: m.measuredOn, notes: m.notes, recordedAt: m.createdAt })
+  const strip = (m: ProductMeasurement): MeasurementView => ({ id: m.id, abvPctVol: m.abvPctVol, residualSugarGL: m.residualSugarGL, lab: m.lab, method: m.method, measuredOn: m.measuredOn, notes: m.notes, recordedAt: m.createdAt.toISOString() })
   return {
     id: p.id,
     code: p.code,
@@ -59,7 +60,7 @@ export function productView(p: ProductWithMeasurement & { history?: ProductMeasu
     bottleSizeMl: p.bottleSizeMl,
     costPerBottleMinor: role === 'manager' ? p.costPerBottleMinor : null,
     status: p.status,
-    updatedAt: p.updatedAt,
+    updatedAt: p.updatedAt.toISOString(),
     current: strip(p.current),
     history: p.history?.map(strip),
     derived: {
@@ -71,7 +72,6 @@ export function productView(p: ProductWithMeasurement & { history?: ProductMeasu
     },
   }
 }
-export type ProductView = ReturnType<typeof productView>
 
 export function duplicateCodeError(code: string) {
   return createError({ statusCode: 409, statusMessage: 'Duplicate code', message: `Another product already uses the code ${code}.`, data: { fields: { code: 'Another product already uses this code.' } } })

@@ -4,6 +4,7 @@ import type { ContentKind } from '../../shared/content'
 import type { ContentDoc } from '../db/schema/content'
 import { markdownToText, renderMarkdown } from '../../shared/markdown'
 import { contentParams } from '../../shared/schemas/content'
+import type { ContentDocView, ContentRevision, RenderedText } from '../../shared/types/content'
 
 export interface ArticleDefault { slug: string, title: string, summary: string, body: string }
 
@@ -52,7 +53,7 @@ export async function findDoc(tx: Tx | Db, venueId: number, kind: ContentKind, s
 }
 
 /** The editor's view of a note or article: its draft, what is published, and its state. */
-export function docView(doc: ContentDoc | undefined, subject: Awaited<ReturnType<typeof resolveSubject>>) {
+export function docView(doc: ContentDoc | undefined, subject: Awaited<ReturnType<typeof resolveSubject>>): ContentDocView {
   const def = subject.default
   return {
     id: doc?.id ?? null,
@@ -61,8 +62,8 @@ export function docView(doc: ContentDoc | undefined, subject: Awaited<ReturnType
     draftBody: doc?.draftBody ?? def?.body ?? '',
     publishedBody: doc ? doc.publishedBody : (def?.body ?? null),
     status: doc?.status ?? (def ? 'published' : 'draft'),
-    publishedAt: doc?.publishedAt ?? null,
-    updatedAt: doc?.updatedAt ?? null,
+    publishedAt: doc?.publishedAt?.toISOString() ?? null,
+    updatedAt: doc?.updatedAt?.toISOString() ?? null,
     /** Articles: true while the shipped default is what guests see. */
     isDefault: Boolean(def && !doc),
     defaultBody: def?.body ?? null,
@@ -102,15 +103,16 @@ export async function writeDoc(tx: Tx, venueId: number, kind: ContentKind, subje
 }
 
 /** Published notes for products or flights, as HTML and plain text, for guests and cards. */
-export async function publishedNotes(venueId: number, kind: 'product_note' | 'flight_intro', ids: number[]): Promise<Map<number, { html: string, text: string }>> {
+export async function publishedNotes(venueId: number, kind: 'product_note' | 'flight_intro', ids: number[]): Promise<Map<number, RenderedText>> {
   if (!ids.length) return new Map()
   const rows = await useDb().select({ subjectId: tables.contentDocs.subjectId, body: tables.contentDocs.publishedBody }).from(tables.contentDocs)
     .where(and(eq(tables.contentDocs.venueId, venueId), eq(tables.contentDocs.kind, kind), eq(tables.contentDocs.status, 'published'), inArray(tables.contentDocs.subjectId, ids)))
   return new Map(rows.filter(r => r.subjectId !== null && r.body).map(r => [r.subjectId!, { html: renderMarkdown(r.body!), text: markdownToText(r.body!) }]))
 }
 
-export async function revisionsOf(docId: number) {
-  return useDb().select({ id: tables.contentRevisions.id, action: tables.contentRevisions.action, title: tables.contentRevisions.title, body: tables.contentRevisions.body, createdAt: tables.contentRevisions.createdAt, author: tables.users.name })
+export async function revisionsOf(docId: number): Promise<ContentRevision[]> {
+  const rows = await useDb().select({ id: tables.contentRevisions.id, action: tables.contentRevisions.action, title: tables.contentRevisions.title, body: tables.contentRevisions.body, createdAt: tables.contentRevisions.createdAt, author: tables.users.name })
     .from(tables.contentRevisions).leftJoin(tables.users, eq(tables.users.id, tables.contentRevisions.authorId))
     .where(eq(tables.contentRevisions.docId, docId)).orderBy(desc(tables.contentRevisions.id)).limit(200)
+  return rows.map(r => ({ ...r, createdAt: r.createdAt.toISOString() }))
 }

@@ -3,6 +3,7 @@ import type { Venue } from '../db/schema/venues'
 import type { Flight, Glass } from '../db/schema/flights'
 import type { PourInput } from '../../shared/schemas/flights'
 import { flightTotals } from '../../shared/science'
+import type { FlightPreview, FlightView, GlassView } from '../../shared/types/flights'
 
 export interface PourSpec { productId: number, volumeMl: number, glassId: number, servingTempC: number, note?: string | null }
 
@@ -22,7 +23,7 @@ async function loadPourContext(venue: Venue, specs: PourSpec[]) {
 }
 type PourContext = Awaited<ReturnType<typeof loadPourContext>>
 
-function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]) {
+function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]): FlightPreview {
   const fields: Record<string, string> = {}
   specs.forEach((s, i) => {
     if (!ctx.products.has(s.productId)) fields[`pours.${i}.productId`] = 'No such product.'
@@ -71,11 +72,11 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]) {
  * Computes every pour of a flight (saved or being edited) with the glass model, and the flight's
  * totals against the venue's per-guest limit. Unknown products or glasses are a 400 on the pour.
  */
-export async function computePours(venue: Venue, specs: PourSpec[]) {
+export async function computePours(venue: Venue, specs: PourSpec[]): Promise<FlightPreview> {
   return computeWith(venue, await loadPourContext(venue, specs), specs)
 }
 
-export const glassView = (g: Glass) => ({ id: g.id, name: g.name, bowlDiameterMm: g.bowlDiameterMm, wallAngleDeg: g.wallAngleDeg, fillHeightMm: g.fillHeightMm })
+export const glassView = (g: Glass): GlassView => ({ id: g.id, name: g.name, bowlDiameterMm: g.bowlDiameterMm, wallAngleDeg: g.wallAngleDeg, fillHeightMm: g.fillHeightMm })
 
 /** A flight in the venue, or 404. Guests and anonymous visitors see published flights only. */
 export async function loadFlight(venue: Venue, id: number, opts: { publishedOnly?: boolean } = {}): Promise<Flight> {
@@ -85,7 +86,7 @@ export async function loadFlight(venue: Venue, id: number, opts: { publishedOnly
 }
 
 /** Full views of several flights in a fixed number of queries (pours, products, glasses, sessions). */
-export async function flightViews(venue: Venue, flights: Flight[]) {
+export async function flightViews(venue: Venue, flights: Flight[]): Promise<FlightView[]> {
   if (!flights.length) return []
   const db = useDb()
   const ids = flights.map(f => f.id)
@@ -105,8 +106,8 @@ export async function flightViews(venue: Venue, flights: Flight[]) {
       /** Marketing's published introduction, as HTML and plain text. */
       intro: intros.get(flight.id) ?? null,
       status: flight.status,
-      publishedAt: flight.publishedAt,
-      updatedAt: flight.updatedAt,
+      publishedAt: flight.publishedAt?.toISOString() ?? null,
+      updatedAt: flight.updatedAt.toISOString(),
       sessionCount: n,
       /** Published or retired with sessions: its pours are fixed; a change needs a new version. */
       locked: flight.status !== 'draft' && n > 0,
@@ -115,10 +116,9 @@ export async function flightViews(venue: Venue, flights: Flight[]) {
   })
 }
 
-export async function flightView(venue: Venue, flight: Flight) {
+export async function flightView(venue: Venue, flight: Flight): Promise<FlightView> {
   return (await flightViews(venue, [flight]))[0]!
 }
-export type FlightView = Awaited<ReturnType<typeof flightView>>
 
 /** Replaces a draft's pours in the caller's transaction. */
 export async function writePours(tx: Tx, flightId: number, pours: PourInput[]) {

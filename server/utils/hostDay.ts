@@ -4,6 +4,7 @@ import type { H3Event } from 'h3'
 import type { TastingSession } from '../db/schema/sessions'
 import type { Venue } from '../db/schema/venues'
 import { BOOKING_STATE_LABELS, SEAT_TAKING_STATES } from '../../shared/bookings'
+import type { HostDay } from '../../shared/types/host'
 
 /** States a host sees on the day's list: who is coming, who came, who did not. */
 const ON_THE_LIST = ['held', 'confirmed', 'checked_in', 'no_show'] as const
@@ -31,7 +32,7 @@ export async function bookingSessionId(bookingId: number): Promise<number> {
 }
 
 /** The day's sessions in the venue's zone with their parties, check-ins and counts, in three queries. */
-export async function hostDay(venue: Venue, user: CurrentUser, date: string, now = new Date()) {
+export async function hostDay(venue: Venue, user: CurrentUser, date: string, now = new Date()): Promise<HostDay> {
   const day = DateTime.fromISO(date, { zone: venue.timeZone }).startOf('day')
   const db = useDb()
   const where = [eq(tables.tastingSessions.venueId, venue.id), gte(tables.tastingSessions.startsAt, day.toUTC().toJSDate()), lt(tables.tastingSessions.startsAt, day.plus({ days: 1 }).toUTC().toJSDate())]
@@ -88,7 +89,6 @@ export async function hostDay(venue: Venue, user: CurrentUser, date: string, now
     }),
   }
 }
-export type HostDay = Awaited<ReturnType<typeof hostDay>>
 
 /** Records the door outcome for a booking inside the caller's transaction. */
 export async function recordCheckIn(tx: Tx, bookingId: number, hostId: number, c: { outcome: 'arrived' | 'turned_away' | 'no_show', seated: number, idsSeen: number, reason?: string | null }) {

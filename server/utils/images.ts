@@ -5,6 +5,7 @@ import { fileTypeFromBuffer } from 'file-type'
 import sharp from 'sharp'
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import { IMAGE_MAX_BYTES, IMAGE_TYPES, type ImageRole } from '../../shared/content'
+import type { ImageView } from '../../shared/types/content'
 
 /** Longest side kept after upload, px: plenty for a phone screen or a printed card. */
 const MAX_SIDE_PX = 2400
@@ -66,17 +67,17 @@ export async function removeImageFiles(storedName: string): Promise<void> {
   for (const f of await readdir(cache).catch(() => [] as string[])) if (f.startsWith(`${stem}-`)) await rm(resolve(cache, f), { force: true })
 }
 
-export function imageView(row: typeof tables.images.$inferSelect) {
+export function imageView(row: typeof tables.images.$inferSelect): ImageView {
   return { id: row.id, productId: row.productId, role: row.role, src: row.storedName, mimeType: row.mimeType, bytes: row.bytes, width: row.width, height: row.height, altText: row.altText }
 }
 
 /** Each product's first photo (or label when it has no photo), for flight pages and cards. */
-export async function productPhotos(venueId: number, productIds: number[]): Promise<Map<number, ReturnType<typeof imageView>>> {
+export async function productPhotos(venueId: number, productIds: number[]): Promise<Map<number, ImageView>> {
   if (!productIds.length) return new Map()
   const rows = await useDb().select().from(tables.images)
     .where(and(eq(tables.images.venueId, venueId), inArray(tables.images.productId, productIds)))
     .orderBy(asc(tables.images.id))
-  const out = new Map<number, ReturnType<typeof imageView>>()
+  const out = new Map<number, ImageView>()
   for (const r of rows.filter(r => r.role === 'photo').concat(rows.filter(r => r.role === 'label'))) {
     if (r.productId !== null && !out.has(r.productId)) out.set(r.productId, imageView(r))
   }

@@ -5,6 +5,7 @@ import { LAB_SHEETS, LAB_SHEET_MAX_ROWS, type LabSheetCheck, type LabSheetKind, 
 import { PRODUCT_KINDS, PRODUCT_KIND_LABELS, ALLERGENS, type ProductKind } from '../../shared/products'
 import { measurementSchema, productCreateSchema } from '../../shared/schemas/products'
 import { fieldErrorsFromZod } from '../../shared/utils/fieldErrors'
+import { currencyDigits, parseMoney } from '../../shared/money'
 
 /** Which CSV column each schema field comes from, so errors point at the column the manager sees. */
 const COLUMN_OF: Record<string, string> = {
@@ -29,16 +30,13 @@ function toKind(s: string | undefined): ProductKind | string | undefined {
   return PRODUCT_KINDS.find(k => k === t.replace(/[\s-]+/g, '_') || PRODUCT_KIND_LABELS[k].toLowerCase() === t) ?? s
 }
 
-/** "14.50" in the venue's currency → minor units (1450 for USD; 14 for JPY's 0 digits). */
-function toMinor(s: string | undefined, digits: number): number | undefined {
-  if (s === undefined || s.trim() === '') return undefined
-  const t = s.trim()
-  const pattern = digits > 0 ? new RegExp(`^\\d+(\\.\\d{1,${digits}})?$`) : /^\d+$/
-  if (!pattern.test(t)) return Number.NaN
-  return Math.round(Number(t) * 10 ** digits)
+/** A sheet's cost cell in minor units: a plain, non-negative number with at most the currency's decimals, else NaN. */
+function sheetMinor(cell: string | undefined, currency: string): number | undefined {
+  const v = parseMoney(cell, currency)
+  return v === undefined || (Number.isInteger(v) && v >= 0 && /^\d/.test(String(cell).trim())) ? v : Number.NaN
 }
 
-function productInput(r: Record<string, string>, digits: number) {
+function productInput(r: Record<string, string>, currency: string) {
   return {
     code: r.code,
     kind: toKind(r.kind),
@@ -48,7 +46,7 @@ function productInput(r: Record<string, string>, digits: number) {
     servingTempC: toNumber(r.serving_temp_c),
     allergens: (r.allergens ?? '').split(/[;|]/).map(a => a.trim().toLowerCase()).filter(Boolean),
     bottleSizeMl: toNumber(r.bottle_ml),
-    costPerBottleMinor: toMinor(r.cost_per_bottle, digits),
+    costPerBottleMinor: sheetMinor(r.cost_per_bottle, currency),
     measurement: measurementInput(r),
   }
 }
@@ -64,12 +62,13 @@ function measurementInput(r: Record<string, string>) {
   }
 }
 
-function messagesByColumn(error: z.ZodError, r: Record<string, string>, digits = 2): Record<string, string> {
+function messagesByColumn(error: z.ZodError, r: Record<string, string>, currency: string): Record<string, string> {
+  const digits = currencyDigits(currency)
   const out: Record<string, string> = {}
   for (const [path, message] of Object.entries(fieldErrorsFromZod(error))) {
     const column = COLUMN_OF[path] ?? COLUMN_OF[path.replace(/\.\d+$/, '')] ?? path
     if (column === 'kind') out[column] = r.kind ? `Unknown kind "${r.kind}". Use one of: ${PRODUCT_KINDS.join(', ')}.` : `Enter the kind: ${PRODUCT_KINDS.join(', ')}.`
-    else if (column === 'cost_per_bottle' && r.cost_per_bottle && Number.isNaN(toMinor(r.cost_per_bottle, digits))) {
+    else if (column === 'cost_per_bottle' && r.cost_per_bottle && Number.isNaN(sheetMinor(r.cost_per_bottle, currency))) {
       out[column] = digits > 0 ? `Enter the cost as a plain number with at most ${digits} decimals, like 14.50.` : 'Enter the cost as a whole number.'
     }
     else if (column === 'allergens') out[column] = `Unknown allergen. Use: ${ALLERGENS.join(', ')} (separate with ;).`
@@ -154,7 +153,7 @@ export async function checkLabSheet(csv: string, sheet: LabSheetKind, venue: { i
   const missingColumns = spec.required.filter(c => !columns.includes(c))
   const known = new Set<string>([...spec.required, ...spec.optional])
   const unknownColumns = columns.filter(c => !known.has(c))
-  const digits = new Intl.NumberFormat('en', { style: 'currency', currency: venue.currency }).resolvedOptions().maximumFractionDigits ?? 2
+  const currency = venue.currency
 
   const db = useDb()
   const existing = new Map((await db.select({ id: tables.products.id, code: tables.products.code, name: tables.products.name, kind: tables.products.kind }).from(tables.products)
@@ -186,8 +185,8 @@ export async function checkLabSheet(csv: string, sheet: LabSheetKind, venue: { i
     if (sheet === 'products') {
       summary.name = r.name || undefined
       summary.kind = r.kind ? toKind(r.kind) : undefined
-      const result = productCreateSchema.safeParse(productInput(r, digits))
-      if (!result.success) keepFirst(errors, messagesByColumn(result.error, r, digits))
+      const result = productCreateSchema.safeParse(productInput(r, currency))
+      if (!result.success) keepFirst(errors, messagesByColumn(result.error, r, currency))
       const firstLine = seen.get(code.toLowerCase())
       if (code && firstLine) errors.code = `Duplicate code: line ${firstLine} has it too.`
       else if (code && existing.has(code.toLowerCase())) errors.code ??= 'A product with this code is already on the list. Import its new numbers as a measurement sheet.'
@@ -199,7 +198,7 @@ export async function checkLabSheet(csv: string, sheet: LabSheetKind, venue: { i
       summary.name = product?.name
       summary.kind = product?.kind
       const result = measurementSchema.safeParse(measurementInput(r))
-      if (!result.success) keepFirst(errors, messagesByColumn(result.error, r))
+      if (!result.success) keepFirst(errors, messagesByColumn(result.error, r, currency))
       if (!code) errors.code = 'Enter the product code.'
       else if (!product) errors.code = 'No product on the list has this code.'
       const key = measurementKey(code, r.measured_on ?? '', r.lab ?? '')

@@ -1,6 +1,7 @@
 import { DateTime } from 'luxon'
 import { asc, eq, type SQL } from 'drizzle-orm'
 import type { TastingSession } from '../db/schema/sessions'
+import type { SessionRow } from '../../shared/types/sessions'
 
 /**
  * Weekly local start times turned into UTC instants in the venue's zone. luxon adds calendar
@@ -21,7 +22,7 @@ export function weeklyStartsUtc(opts: { startDate: string, startTime: string, we
   return starts
 }
 
-export function sessionView(s: TastingSession, extra: { flightName: string, flightVersion: number, hostName: string | null }, timeZone: string) {
+export function sessionView(s: TastingSession, extra: { flightName: string, flightVersion: number, hostName: string | null }, timeZone: string): SessionRow {
   const local = DateTime.fromJSDate(s.startsAt, { zone: timeZone })
   return {
     id: s.id,
@@ -54,7 +55,7 @@ export async function assertHost(venueId: number, hostId: number | null): Promis
 }
 
 /** Sessions with their flight and host names, in one joined query. */
-export async function loadSessionViews(where: SQL | undefined, timeZone: string) {
+export async function loadSessionViews(where: SQL | undefined, timeZone: string): Promise<SessionRow[]> {
   const rows = await useDb().select({ s: tables.tastingSessions, flightName: tables.flights.name, flightVersion: tables.flights.version, hostName: tables.users.name })
     .from(tables.tastingSessions)
     .innerJoin(tables.flights, eq(tables.flights.id, tables.tastingSessions.flightId))

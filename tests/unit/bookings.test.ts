@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { BOOKING_STATES, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, SEAT_TAKING_STATES, canTransition, minorToDecimal, type BookingEvent, type BookingState } from '../../shared/bookings'
+import { BOOKING_STATES, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, SEAT_TAKING_STATES, canTransition, type BookingEvent, type BookingState } from '../../shared/bookings'
+import { minorToDecimal } from '../../shared/money'
 import { bookingCreateSchema, bookingReportQuerySchema } from '../../shared/schemas/bookings'
 import { fieldErrorsFromZod } from '../../shared/utils/fieldErrors'
 

@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm'
+import type { AccountView } from '../../../shared/types/account'
 
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<AccountView> => {
   const me = await requireUser(event)
   const [row] = await useDb().select({
     id: tables.users.id,
@@ -10,5 +11,5 @@ export default defineEventHandler(async (event) => {
     dateOfBirth: tables.users.dateOfBirth,
     createdAt: tables.users.createdAt,
   }).from(tables.users).where(eq(tables.users.id, me.id))
-  return row!
+  return { ...row!, createdAt: row!.createdAt.toISOString() }
 })

@@ -1,10 +1,11 @@
 import { z } from 'zod'
 import { renderMarkdown } from '../../../shared/markdown'
+import type { ArticleView } from '../../../shared/types/content'
 
 const params = z.object({ slug: z.string().regex(/^[\w-]{1,80}$/, { error: 'Not a valid article.' }) })
 
 /** One published article as HTML (raw HTML off, safe links only). Drafts never show here. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<ArticleView> => {
   const { slug } = await readParamsAs(event, params)
   const venue = await getVenue()
   const subject = await resolveSubject(venue.id, 'article', slug)

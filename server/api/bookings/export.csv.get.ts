@@ -1,7 +1,8 @@
 import Papa from 'papaparse'
 import { DateTime } from 'luxon'
 import { bookingReportQuerySchema } from '../../../shared/schemas/bookings'
-import { BOOKING_STATE_LABELS, minorToDecimal } from '../../../shared/bookings'
+import { BOOKING_STATE_LABELS } from '../../../shared/bookings'
+import { minorToDecimal } from '../../../shared/money'
 
 /** A cell a spreadsheet would run as a formula gets a leading apostrophe (OWASP, CSV injection). */
 const safeText = (v: string) => (/^[=+\-@\t\r]/.test(v) ? `'${v}` : v)

@@ -1,14 +1,15 @@
 import { and, eq } from 'drizzle-orm'
+import type { ContentList, ContentListState } from '../../../shared/types/content'
 
 /** What marketing can write: articles, each product's note, each flight's introduction, with state. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<ContentList> => {
   await requireRole(event, 'manager', 'marketing')
   const venue = await getVenue()
   const db = useDb()
   const docs = await db.select().from(tables.contentDocs).where(eq(tables.contentDocs.venueId, venue.id))
   const key = (kind: string, id: number | string | null) => `${kind}:${id}`
   const byKey = new Map(docs.map(d => [key(d.kind, d.kind === 'article' ? d.slug : d.subjectId), d]))
-  const state = (kind: string, id: number | string) => {
+  const state = (kind: string, id: number | string): ContentListState => {
     const d = byKey.get(key(kind, id))
     if (!d) return kind === 'article' ? 'default' : 'none'
     return d.status === 'published' ? (d.draftBody !== d.publishedBody ? 'published-with-changes' : 'published') : 'draft'

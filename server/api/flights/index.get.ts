@@ -1,7 +1,8 @@
 import { and, desc, eq } from 'drizzle-orm'
+import type { FlightListItem } from '../../../shared/types/flights'
 
 /** Staff see every flight; guests and visitors see published flights only. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<FlightListItem[]> => {
   const isStaff = isStaffRole((await optionalUser(event))?.role)
   const venue = await getVenue()
   const rows = await useDb().select().from(tables.flights)

@@ -1,5 +1,5 @@
 import { and, desc, eq } from 'drizzle-orm'
-import type { PublishedFlight } from '../../../shared/bookings'
+import type { PublishedFlight } from '../../../shared/types/flights'
 
 /** The public list of flights: what is poured, from what price, and the next sessions with seats left. */
 export default defineEventHandler(async (): Promise<PublishedFlight[]> => {

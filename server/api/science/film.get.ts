@@ -1,8 +1,9 @@
 import { computeFilm, describePour } from '../../../shared/science'
 import { filmQuerySchema } from '../../../shared/schemas/science'
+import type { FilmView } from '../../../shared/types/science'
 
 /** Every intermediate quantity of the glass model for one pour, each with its unit in its name. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<FilmView> => {
   const q = await readQueryAs(event, filmQuerySchema)
   const film = computeFilm({ abvPctVol: q.abv, tempC: q.tempC, sugarGL: q.sugarGL, wallAngleDeg: q.wallAngleDeg })
   setResponseHeader(event, 'cache-control', 'public, max-age=3600')

@@ -1,10 +1,11 @@
 import { computeFilm, describePour, DEFAULT_WALL_ANGLE_DEG } from '../../../shared/science'
+import type { ProductOnCurve } from '../../../shared/types/science'
 
 /**
  * The venue's active products as the glass model sees them at their serving temperature, for the
  * public page that explains the effect. Only what a label or a menu shows is public.
  */
-export default defineEventHandler(async () => {
+export default defineEventHandler(async (): Promise<ProductOnCurve[]> => {
   const venue = await getVenue()
   const products = (await loadProducts(venue.id)).filter(p => p.status === 'active')
   return products.map((p) => {

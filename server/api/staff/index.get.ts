@@ -1,7 +1,8 @@
 import { asc, ne } from 'drizzle-orm'
+import type { StaffMember } from '../../../shared/types/account'
 
 /** Staff accounts (not guests), for the manager's staff page. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<StaffMember[]> => {
   await requireRole(event, 'manager')
   const rows = await useDb().select({
     id: tables.users.id,
@@ -12,5 +13,5 @@ export default defineEventHandler(async (event) => {
     passwordHash: tables.users.passwordHash,
     createdAt: tables.users.createdAt,
   }).from(tables.users).where(ne(tables.users.role, 'guest')).orderBy(asc(tables.users.name))
-  return rows.map(({ passwordHash, ...r }) => ({ ...r, invitationPending: passwordHash === null }))
+  return rows.map(({ passwordHash, ...r }) => ({ ...r, createdAt: r.createdAt.toISOString(), invitationPending: passwordHash === null }))
 })

@@ -1,10 +1,11 @@
 import { idParam } from '../../../../shared/schemas/common'
+import type { SessionAvailability } from '../../../../shared/types/sessions'
 
 /**
  * What a guest needs before booking one session: when, price, seats left, whether it can still be
  * booked, and the flight's standard drinks per guest under the venue's definition. Public.
  */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<SessionAvailability> => {
   const { id } = await readParamsAs(event, idParam)
   const venue = await getVenue()
   const session = await loadPublicSession(venue, id)

@@ -3,7 +3,8 @@ import type { Allergen, ProductKind, ProductStatus } from '#shared/products'
 import { measurementSchema, productCreateSchema, productPatchSchema } from '#shared/schemas/products'
 import { fromDisplayTemp, toDisplayTemp } from '#shared/pours'
 import { TEMP_RANGE_C } from '#shared/science/ranges'
-import type { Product } from './useProducts'
+import type { ProductView } from '#shared/types/products'
+import { currencyDigits, minorToDecimal, parseMoney } from '#shared/money'
 
 // The transforms below hand the schema values it has yet to check (an empty box is undefined); the
 // casts only tell TypeScript so, and the piped schema refuses them with a message per field.
@@ -41,20 +42,6 @@ export interface FormUnits { temperatureUnit: 'c' | 'f', currency: string }
 
 const numberOrNothing = (v: number | string | '') => (v === '' || v === null || v === undefined ? undefined : Number(v))
 
-/** "14.50" → 1450 (USD). More decimals than the currency has stay fractional, so zod refuses them. */
-export function costToMinor(cost: string, digits: number): number | undefined {
-  const t = String(cost ?? '').trim().replace(/^[^\d.-]+/, '')
-  if (t === '') return undefined
-  const n = Number(t)
-  if (!Number.isFinite(n)) return Number.NaN
-  const pattern = digits > 0 ? new RegExp(`^-?\\d*(\\.\\d{0,${digits}})?$`) : /^-?\d+$/
-  return pattern.test(t) ? Math.round(n * 10 ** digits) : n * 10 ** digits
-}
-
-export function minorToCost(minor: number, digits: number): string {
-  return (minor / 10 ** digits).toFixed(digits)
-}
-
 export function productBody(v: ProductFormValues, units: FormUnits) {
   const temp = numberOrNothing(v.servingTemp)
   return {
@@ -66,7 +53,7 @@ export function productBody(v: ProductFormValues, units: FormUnits) {
     servingTempC: temp === undefined ? undefined : fromDisplayTemp(temp, units.temperatureUnit),
     allergens: v.allergens,
     bottleSizeMl: numberOrNothing(v.bottleSizeMl),
-    costPerBottleMinor: costToMinor(v.cost, currencyMinorDigits(units.currency)),
+    costPerBottleMinor: parseMoney(v.cost, units.currency),
     status: v.status,
   }
 }
@@ -95,7 +82,7 @@ export const measurementForm = z.custom<MeasurementFormValues>()
   .pipe(measurementSchema)
 
 /** The form's starting values: a blank product, or this product in the venue's units. */
-export function productFormValues(p: Product | null, units: FormUnits): ProductFormValues {
+export function productFormValues(p: ProductView | null, units: FormUnits): ProductFormValues {
   if (!p) {
     return { code: '', kind: '', name: '', producer: '', vintageOrBatch: '', servingTemp: '', allergens: [], bottleSizeMl: 750, cost: '', status: 'active' }
   }
@@ -108,7 +95,7 @@ export function productFormValues(p: Product | null, units: FormUnits): ProductF
     servingTemp: Math.round(toDisplayTemp(p.servingTempC, units.temperatureUnit) * 10) / 10,
     allergens: [...p.allergens],
     bottleSizeMl: p.bottleSizeMl,
-    cost: p.costPerBottleMinor === null ? '' : minorToCost(p.costPerBottleMinor, currencyMinorDigits(units.currency)),
+    cost: p.costPerBottleMinor === null ? '' : minorToDecimal(p.costPerBottleMinor, units.currency),
     status: p.status,
   }
 }
@@ -132,6 +119,6 @@ export function temperatureMessage(message: string | undefined, unit: 'c' | 'f')
 /** The schema speaks minor units; the form asks for the price as printed on an invoice. */
 export function costMessage(message: string | undefined, currency: string): string | undefined {
   if (!message || !/minor units/.test(message)) return message
-  const digits = currencyMinorDigits(currency)
+  const digits = currencyDigits(currency)
   return digits > 0 ? `Use at most ${digits} decimals, like ${(14.5).toFixed(digits)}.` : 'Use a whole number.'
 }

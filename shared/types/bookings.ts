@@ -1,0 +1,43 @@
+import type { BookingEndReason, BookingState } from '../bookings'
+import type { SessionStatus } from '../sessions'
+
+/** A booking as its guest sees it (GET /api/bookings, /api/bookings/[id], and the guest's actions). */
+export interface BookingView {
+  id: number
+  reference: string
+  state: BookingState
+  stateLabel: string
+  endReason: BookingEndReason | null
+  partySize: number
+  contactName: string
+  contactEmail: string
+  contactPhone: string
+  unitPriceMinor: number
+  amountMinor: number
+  amountPaidMinor: number
+  amountRefundedMinor: number
+  currency: string
+  holdExpiresAt: string
+  /** Where to finish paying, while the hold lasts. */
+  checkoutUrl: string | null
+  createdAt: string
+  confirmedAt: string | null
+  cancelledAt: string | null
+  refundedAt: string | null
+  cancelDeadline: string
+  canCancel: boolean
+  canRelease: boolean
+  session: {
+    id: number
+    flightId: number
+    flightName: string
+    startsAt: string
+    endsAt: string
+    durationMinutes: number
+    status: SessionStatus
+    upcoming: boolean
+  }
+}
+
+/** A new hold and where to pay for it (POST /api/bookings). */
+export interface BookingCreated { booking: BookingView, checkoutUrl: string }

@@ -1,0 +1,57 @@
+import type { GlassShape } from '../glassDiagram'
+import type { TearPrediction } from '../science'
+
+/** One pour's lines on a flight card. */
+export interface CardPour {
+  position: number
+  name: string
+  kind: string
+  producer: string
+  vintageOrBatch: string | null
+  abvText: string
+  volumeText: string
+  servedAtText: string
+  ethanolGrams: number
+  standardDrinks: number
+  filmActivityIndex: number
+  glass: GlassShape
+  prediction: TearPrediction
+  lookFor: string[]
+  tastingNote: string | null
+  allergens: string[]
+  pourUrl: string
+}
+
+/**
+ * A flight card: the one description the PDF and the print page both render (shared/cards.ts
+ * builds it; GET /api/cards/flights/[id], and per seated guest in a session's cards).
+ */
+export interface FlightCard {
+  venue: { name: string, address: string, legalAge: number }
+  flight: { id: number, name: string, version: number, summary: string }
+  guestName: string | null
+  sessionLabel: string | null
+  pours: CardPour[]
+  totals: { ethanolGrams: number, standardDrinks: number, volumeText: string, definition: string }
+  why: string
+  quality: string
+  cautions: string[]
+  qrUrl: string
+}
+
+/** Every seated guest's card for one session (GET /api/cards/sessions/[id]). */
+export interface SessionCards { sessionId: number, cards: FlightCard[] }
+
+/** One pour explained, as a card's QR code opens it (GET /api/pours/[flightId]/[position]). */
+export interface PourPage {
+  venue: { name: string, temperatureUnit: 'c' | 'f' }
+  flight: { id: number, name: string, pourCount: number }
+  pour: CardPour
+  description: string[]
+  servingTempC: number
+  residualSugarGL: number
+  abvPctVol: number
+  viscosity_mPa_s: number
+  surfaceTensionBulk_mN_m: number
+  surfaceTensionFilm_mN_m: number
+}

@@ -1,0 +1,52 @@
+import type { ContentStatus, ImageRole } from '../content'
+
+/** Markdown rendered once on the server: sanitised HTML and its plain text. */
+export interface RenderedText { html: string, text: string }
+
+/** An uploaded image (GET /api/images, and each product's photo on flight views). */
+export interface ImageView {
+  id: number
+  productId: number | null
+  role: ImageRole
+  /** The stored file's name, served resized under /media. */
+  src: string
+  mimeType: string
+  bytes: number
+  width: number
+  height: number
+  altText: string
+}
+
+/** A note or article as the editor shows it (GET/PUT /api/content/[kind]/[subject] and its actions). */
+export interface ContentDocView {
+  id: number | null
+  label: string
+  title: string
+  draftBody: string
+  publishedBody: string | null
+  status: ContentStatus
+  publishedAt: string | null
+  updatedAt: string | null
+  /** Articles: true while the shipped default is what guests see. */
+  isDefault: boolean
+  defaultBody: string | null
+}
+
+export interface ContentRevision {
+  id: number
+  action: 'save' | 'publish' | 'unpublish' | 'restore'
+  title: string
+  body: string
+  createdAt: string
+  author: string | null
+}
+
+export type ContentListState = 'none' | 'default' | 'draft' | 'published' | 'published-with-changes'
+export interface ContentListItem { subject: string, name: string, state: ContentListState }
+/** What marketing can write (GET /api/content). */
+export interface ContentList { articles: ContentListItem[], productNotes: ContentListItem[], flightIntros: ContentListItem[] }
+
+/** An article on the guests' list (GET /api/articles). */
+export interface ArticleSummary { slug: string, title: string, summary: string }
+/** One published article (GET /api/articles/[slug]). */
+export interface ArticleView extends ArticleSummary { html: string }

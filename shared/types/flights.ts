@@ -1,0 +1,73 @@
+import type { FlightStatus } from '../flights'
+import type { Allergen, ProductKind, ProductStatus } from '../products'
+import type { FilmResult } from '../science'
+import type { ImageView, RenderedText } from './content'
+import type { PublicSession } from './sessions'
+
+/** A glass shape as the diagram and the glass model read it (GET /api/glasses). */
+export interface GlassView { id: number, name: string, bowlDiameterMm: number, wallAngleDeg: number, fillHeightMm: number }
+
+/** One pour of a flight with everything the glass model says about it. */
+export interface FlightPourView {
+  position: number
+  productId: number
+  product: { code: string, name: string, kind: ProductKind, producer: string, vintageOrBatch: string | null, allergens: Allergen[], status: ProductStatus }
+  abvPctVol: number
+  residualSugarGL: number
+  /** Calendar date of the lab measurement used, YYYY-MM-DD. */
+  measuredOn: string
+  volumeMl: number
+  servingTempC: number
+  note: string | null
+  glass: GlassView
+  ethanolGrams: number
+  standardDrinks: number
+  filmActivityIndex: number
+  film: FilmResult
+  /** The product's published tasting note (drafts never reach guests or cards). */
+  tastingNote: RenderedText | null
+  photo: ImageView | null
+}
+
+/** A flight's totals per guest against the venue's per-guest limit. */
+export interface FlightTotalsView { volumeMl: number, ethanolGrams: number, standardDrinks: number, limitGrams: number, overLimit: boolean }
+
+/** Live figures for pours being edited (POST /api/flights/preview). */
+export interface FlightPreview { pours: FlightPourView[], totals: FlightTotalsView }
+
+/** A whole flight (GET /api/flights/[id]; the builder's save, publish and other actions answer it too). */
+export interface FlightView extends FlightPreview {
+  id: number
+  lineageId: number
+  version: number
+  name: string
+  summary: string
+  /** Marketing's published introduction. */
+  intro: RenderedText | null
+  status: FlightStatus
+  publishedAt: string | null
+  updatedAt: string
+  sessionCount: number
+  /** Published or retired with sessions: its pours are fixed; a change needs a new version. */
+  locked: boolean
+}
+
+/** A flight on the staff list (GET /api/flights): its pours in brief. */
+export interface FlightListItem extends Omit<FlightView, 'pours'> {
+  pourCount: number
+  pours: { position: number, name: string, kind: ProductKind, abvPctVol: number, filmActivityIndex: number }[]
+}
+
+/** A flight on the public list (GET /api/flights/published). */
+export interface PublishedFlight {
+  id: number
+  name: string
+  summary: string
+  pourCount: number
+  kinds: ProductKind[]
+  standardDrinks: number
+  priceFromMinor: number | null
+  currency: string
+  nextSessions: PublicSession[]
+  sessionCount: number
+}

@@ -1,0 +1,41 @@
+import type { Allergen, ProductKind, ProductStatus } from '../products'
+
+/** One lab measurement of a product. */
+export interface MeasurementView {
+  id: number
+  abvPctVol: number
+  residualSugarGL: number
+  lab: string
+  method: string
+  /** Calendar date YYYY-MM-DD. */
+  measuredOn: string
+  notes: string | null
+  recordedAt: string
+}
+
+/** A product as staff see it (GET /api/products, /api/products/[id]); cost for managers only. */
+export interface ProductView {
+  id: number
+  code: string
+  kind: ProductKind
+  name: string
+  producer: string
+  vintageOrBatch: string | null
+  servingTempC: number
+  allergens: Allergen[]
+  bottleSizeMl: number
+  costPerBottleMinor: number | null
+  status: ProductStatus
+  updatedAt: string
+  current: MeasurementView
+  /** The whole history, newest first (one product only). */
+  history?: MeasurementView[]
+  /** What the glass model derives for a default tasting pour at the serving temperature. */
+  derived: {
+    tastingPourMl: number
+    ethanolGramsPerPour: number
+    standardDrinksPerPour: number
+    filmActivityIndex: number
+    tearsExpected: boolean
+  }
+}

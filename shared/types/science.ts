@@ -1,0 +1,21 @@
+import type { ProductKind } from '../products'
+import type { FilmResult, TearPrediction } from '../science'
+
+/** Every quantity of the glass model for one pour, and the guest's sentences (GET /api/science/film). */
+export interface FilmView extends FilmResult { description: string[] }
+
+/** A venue product as the glass model sees it at its serving temperature (GET /api/science/products). */
+export interface ProductOnCurve {
+  id: number
+  name: string
+  kind: ProductKind
+  producer: string
+  vintageOrBatch: string | null
+  abvPctVol: number
+  residualSugarGL: number
+  servingTempC: number
+  filmActivityIndex: number
+  predictions: TearPrediction
+  viscosity_mPa_s: number
+  description: string[]
+}

@@ -1,0 +1,18 @@
+/** The venue's public settings, as GET /api/venue sends them (server/api/venue/index.get.ts). */
+export interface PublicVenue {
+  id: number
+  name: string
+  address: string
+  /** IANA zone: every instant is UTC on the wire and shown in this zone. */
+  timeZone: string
+  /** ISO 4217 code; amounts are integer minor units of it. */
+  currency: string
+  legalAge: number
+  volumeUnit: 'ml' | 'floz'
+  temperatureUnit: 'c' | 'f'
+  standardDrinkKind: 'us' | 'uk' | 'au' | 'custom'
+  standardDrinkGrams: number
+  guestEthanolLimitGrams: number
+  cancellationCutoffHours: number
+  cautions: string
+}
