@@ -1,4 +1,5 @@
 import type { InjectionKey } from 'vue'
+import type { LabSheetImported } from '#shared/types/products'
 import { LAB_SHEET_MAX_BYTES, type LabSheetCheck, type LabSheetKind, type LabSheetRow, type LabSheetStreamLine } from '#shared/labSheet'
 
 type LabSheetPhase = 'choose' | 'checking' | 'checked' | 'importing' | 'imported'
@@ -102,7 +103,7 @@ function labSheetImport() {
     phase.value = 'importing'
     try {
       const lines = [...selected.value].sort((a, b) => a - b)
-      const res = await $fetch<{ imported: number }>('/api/imports/commit', { method: 'POST', body: { sheet: sheet.value, csv: csv.value, lines } })
+      const res = await $fetch<LabSheetImported>('/api/imports/commit', { method: 'POST', body: { sheet: sheet.value, csv: csv.value, lines } })
       imported.value = res.imported
       phase.value = 'imported'
       await refreshNuxtData(productsKey)

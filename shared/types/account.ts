@@ -21,3 +21,6 @@ export interface StaffMember {
   invitationPending: boolean
   createdAt: string
 }
+
+/** An answer that is only a message for the person (POST /api/auth/password-reset). */
+export interface MessageAnswer { message: string }

@@ -1,3 +1,4 @@
+import type { LabSheetKind } from '../labSheet'
 import type { Allergen, ProductKind, ProductStatus } from '../products'
 
 /** One lab measurement of a product. */
@@ -39,3 +40,6 @@ export interface ProductView {
     tearsExpected: boolean
   }
 }
+
+/** What importing a lab sheet wrote (POST /api/imports/commit). */
+export interface LabSheetImported { imported: number, sheet: LabSheetKind }

@@ -1,8 +1,9 @@
+import type { MessageAnswer } from '../../../shared/types/account'
 import { eq } from 'drizzle-orm'
 import { resetRequestSchema } from '../../../shared/schemas/auth'
 
 /** Always the same answer, so the form does not reveal which addresses have accounts. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<MessageAnswer> => {
   const { email } = await readBodyAs(event, resetRequestSchema)
   const [user] = await useDb().select().from(tables.users).where(eq(tables.users.email, email)).limit(1)
   if (user && !user.disabled && user.passwordHash) {

@@ -1,7 +1,8 @@
+import type { LabSheetImported } from '../../../shared/types/products'
 import { labSheetCommitSchema } from '../../../shared/schemas/imports'
 
 /** Re-checks the sheet and writes the chosen rows in one transaction (all or nothing). */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<LabSheetImported> => {
   await requireRole(event, 'manager')
   const { sheet, csv, lines } = await readBodyAs(event, labSheetCommitSchema)
   const venue = await getVenue()
