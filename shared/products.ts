@@ -16,3 +16,15 @@ export type ProductStatus = (typeof PRODUCT_STATUSES)[number]
 /** Allergens a label must declare in the EU (Regulation 1169/2011, Annex II) and sulfites over 10 mg/L. */
 export const ALLERGENS = ['sulfites', 'gluten', 'milk', 'egg', 'fish', 'nuts', 'soy', 'celery', 'mustard', 'sesame', 'lupin', 'molluscs', 'crustaceans', 'peanuts'] as const
 export type Allergen = (typeof ALLERGENS)[number]
+
+/** The fields that describe a product, as the catalogue, the lab sheet and the demo give them. */
+export interface ProductFields {
+  code: string
+  kind: ProductKind
+  name: string
+  producer: string
+  vintageOrBatch: string | null
+  servingTempC: number
+  allergens: Allergen[]
+  bottleSizeMl: number
+}

@@ -2,7 +2,7 @@
  * Demo data: a fictional tasting room and its people, invented for Larmoir. Loaded only when the
  * database is empty and NUXT_DEMO_SEED is on (the start command sets it).
  */
-import type { Allergen, ProductKind } from '../../shared/products'
+import type { ProductFields } from '../../shared/products'
 
 export const DEMO_PASSWORD = 'demo-tasting-2026'
 
@@ -33,15 +33,7 @@ export const DEMO_USERS = [
   { email: 'guest@saltmarsh.test', name: 'Maren Achterberg', role: 'guest' as const, dateOfBirth: '1988-04-17' },
 ]
 
-export interface DemoProduct {
-  code: string
-  kind: ProductKind
-  name: string
-  producer: string
-  vintageOrBatch: string | null
-  servingTempC: number
-  allergens: Allergen[]
-  bottleSizeMl: number
+export interface DemoProduct extends ProductFields {
   costPerBottleMinor: number
   abvPctVol: number
   residualSugarGL: number
@@ -89,11 +81,7 @@ export const DEMO_FLIGHTS = [
     name: 'After Dark (in the works)',
     summary: 'A short, stronger flight for evening sessions.',
     publish: false,
-    pours: [
-      { code: 'SV-CF-23', glass: 'Tulip wine glass', volumeMl: 60, servingTempC: 17 },
-      { code: 'SV-FOR-19', glass: 'Nosing glass', volumeMl: 45, servingTempC: 16 },
-      { code: 'SV-GIN-07', glass: 'Nosing glass', volumeMl: 20, servingTempC: 18 },
-    ],
+    pours: [{ code: 'SV-CF-23', glass: 'Tulip wine glass', volumeMl: 60, servingTempC: 17 }, { code: 'SV-FOR-19', glass: 'Nosing glass', volumeMl: 45, servingTempC: 16 }, { code: 'SV-GIN-07', glass: 'Nosing glass', volumeMl: 20, servingTempC: 18 }],
   },
 ]
 

@@ -9,7 +9,7 @@
 import { meanMolarMass_g_mol, massFractionFromMoleFraction } from './composition'
 import { GAS_CONSTANT_J_MOL_K, KELVIN_AT_0C, MOLAR_MASS_ETHANOL_G_MOL, MOLAR_MASS_WATER_G_MOL } from './constants'
 import { TEMP_RANGE_C, assertInRange } from './ranges'
-import { type ActivityModel, vapourStateUnchecked } from './vle'
+import { type ActivityModel, type VapourState, vapourStateUnchecked } from './vle'
 
 /**
  * Fraction of its volatile (water + ethanol) mass that the film at the top of the climbing band has
@@ -36,22 +36,14 @@ export const EVAPORATION_MASS_TRANSFER_COEFF_M_S = 5e-3
 /** Number of classical Runge–Kutta steps for the Rayleigh integration (error < 1e-9 in x1; see tests). */
 const RAYLEIGH_RK4_STEPS = 40
 
-/** Evaporation fluxes from a liquid surface into dry, still air. */
-export interface EvaporationFlux {
+/** Evaporation fluxes from a liquid surface into dry, still air (pressures and vapour as in VapourState, vle.ts). */
+export interface EvaporationFlux extends Pick<VapourState, 'pEthanol_Pa' | 'pWater_Pa' | 'relativeVolatility' | 'y1'> {
   /** Ethanol mass flux, kg/(m²·s). */
   ethanol_kg_m2_s: number
   /** Water mass flux, kg/(m²·s). */
   water_kg_m2_s: number
   /** Total mass flux, kg/(m²·s). */
   total_kg_m2_s: number
-  /** Ethanol partial pressure at the surface, Pa. */
-  pEthanol_Pa: number
-  /** Water partial pressure at the surface, Pa. */
-  pWater_Pa: number
-  /** Relative volatility α = γ1P1sat/(γ2P2sat) at the liquid temperature. */
-  relativeVolatility: number
-  /** Ethanol mole fraction of the vapour leaving the surface, 0–1. */
-  y1: number
 }
 
 /**

@@ -1,5 +1,5 @@
 import type { LabSheetKind } from '../labSheet'
-import type { Allergen, ProductKind, ProductStatus } from '../products'
+import type { ProductFields, ProductStatus } from '../products'
 
 /** One lab measurement of a product. */
 export interface MeasurementView {
@@ -15,16 +15,8 @@ export interface MeasurementView {
 }
 
 /** A product as staff see it (GET /api/products, /api/products/[id]); cost for managers only. */
-export interface ProductView {
+export interface ProductView extends ProductFields {
   id: number
-  code: string
-  kind: ProductKind
-  name: string
-  producer: string
-  vintageOrBatch: string | null
-  servingTempC: number
-  allergens: Allergen[]
-  bottleSizeMl: number
   costPerBottleMinor: number | null
   status: ProductStatus
   updatedAt: string
