@@ -81,7 +81,7 @@ export function useLabSheetImport() {
     }
     phase.value = 'checking'
     try {
-      const res = await fetch('/api/imports/preview', {
+      const res = await fetch('/api/lab-sheets/check', {
         method: 'POST',
         headers: { 'content-type': 'application/json', 'accept': 'application/x-ndjson' },
         body: JSON.stringify({ sheet: sheet.value, csv: csv.value }),
@@ -124,7 +124,7 @@ export function useLabSheetImport() {
     phase.value = 'importing'
     try {
       const lines = [...selected.value].sort((a, b) => a - b)
-      const res = await $fetch<{ imported: number }>('/api/imports/commit', { method: 'POST', body: { sheet: sheet.value, csv: csv.value, lines } })
+      const res = await $fetch<{ imported: number }>('/api/lab-sheets', { method: 'POST', body: { sheet: sheet.value, csv: csv.value, lines } })
       imported.value = res.imported
       phase.value = 'imported'
       await refreshNuxtData(productsKey)
