@@ -62,8 +62,9 @@ export default defineNuxtConfig({
     // most. A flight's own sessions and the booking form read seats live, and booking is decided in
     // the database (server/utils/bookings.ts), never from this list.
     '/api/flights/published': { cache: { maxAge: 5, swr: false } },
-    // The card PDF opens in the browser's own viewer, which a default-src 'none' would blank.
-    '/api/cards/flights/**': { headers: { 'content-security-policy': 'frame-ancestors \'self\'' } },
+    // The card PDFs open in the browser's own viewer, which a default-src 'none' would blank.
+    '/cards/flights/*/card.pdf': { headers: { 'content-security-policy': 'frame-ancestors \'self\'' } },
+    '/cards/jobs/*/cards.pdf': { headers: { 'content-security-policy': 'frame-ancestors \'self\'' } },
   },
   compatibilityDate: '2026-01-01',
   nitro: {

@@ -117,7 +117,7 @@ async function main() {
     const times: number[] = []
     for (let i = 0; i < 20; i++) {
       const t = performance.now()
-      const res = await fetch(`${base}/api/cards/flights/${flightId}/pdf`, { headers: { cookie: manager.cookie } })
+      const res = await fetch(`${base}/cards/flights/${flightId}/card.pdf`, { headers: { cookie: manager.cookie } })
       await res.arrayBuffer()
       if (res.status !== 200) throw new Error(`PDF answered ${res.status}`)
       times.push(performance.now() - t)

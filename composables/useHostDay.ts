@@ -2,7 +2,7 @@ import type { HostDay, HostParty, HostSession } from '#shared/types/host'
 
 /** The host's day for a venue-local date, and every door action on it (each refreshes the day). */
 export function useHostDay(date: Ref<string>) {
-  const day = useFetch<HostDay>('/api/host/day', { key: 'host-day', query: computed(() => ({ date: date.value })) })
+  const day = useFetch<HostDay>(() => `/api/days/${encodeURIComponent(date.value)}`, { key: 'host-day' })
   const { busy, message, error, run } = useAction()
   // Plain string URLs: the typed route inference of $fetch is too deep for these templates.
   const post = (url: string, body?: Record<string, unknown>) => $fetch(url, { method: 'POST', body })
@@ -15,9 +15,9 @@ export function useHostDay(date: Ref<string>) {
     error,
     busy,
     refresh: day.refresh,
-    checkIn: (p: HostParty, seated: number, idsSeen: number, reason?: string) => act(() => post(`/api/host/bookings/${p.id}/check-in`, { seated, idsSeen, ...(reason ? { reason } : {}) }), `${p.contactName}: ${seated} seated.`),
-    turnAway: (p: HostParty, reason: string) => act(() => post(`/api/host/bookings/${p.id}/turn-away`, { reason }), `${p.contactName}'s party turned away.`),
-    noShow: (p: HostParty) => act(() => post(`/api/host/bookings/${p.id}/no-show`), `${p.contactName}'s party marked as not coming.`),
-    walkIn: (s: HostSession, body: { contactName: string, partySize: number, idsSeen: number, notes?: string }) => act(() => post(`/api/host/sessions/${s.id}/walk-ins`, body), `${body.contactName}: ${body.partySize} walk-in guest${body.partySize === 1 ? '' : 's'} seated.`),
+    checkIn: (p: HostParty, seated: number, idsSeen: number, reason?: string) => act(() => post(`/api/bookings/${p.id}/check-in`, { seated, idsSeen, ...(reason ? { reason } : {}) }), `${p.contactName}: ${seated} seated.`),
+    turnAway: (p: HostParty, reason: string) => act(() => post(`/api/bookings/${p.id}/turn-away`, { reason }), `${p.contactName}'s party turned away.`),
+    noShow: (p: HostParty) => act(() => post(`/api/bookings/${p.id}/no-show`), `${p.contactName}'s party marked as not coming.`),
+    walkIn: (s: HostSession, body: { contactName: string, partySize: number, idsSeen: number, notes?: string }) => act(() => post(`/api/sessions/${s.id}/walk-ins`, body), `${body.contactName}: ${body.partySize} walk-in guest${body.partySize === 1 ? '' : 's'} seated.`),
   }
 }

@@ -60,7 +60,7 @@ function labSheetImport() {
     }
     phase.value = 'checking'
     try {
-      const res = await fetch('/api/imports/preview', {
+      const res = await fetch('/api/lab-sheets/check', {
         method: 'POST',
         headers: { 'content-type': 'application/json', 'accept': 'application/x-ndjson' },
         body: JSON.stringify({ sheet: sheet.value, csv: csv.value }),
@@ -103,7 +103,7 @@ function labSheetImport() {
     phase.value = 'importing'
     try {
       const lines = [...selected.value].sort((a, b) => a - b)
-      const res = await $fetch<LabSheetImported>('/api/imports/commit', { method: 'POST', body: { sheet: sheet.value, csv: csv.value, lines } })
+      const res = await $fetch<LabSheetImported>('/api/lab-sheets', { method: 'POST', body: { sheet: sheet.value, csv: csv.value, lines } })
       imported.value = res.imported
       phase.value = 'imported'
       await refreshNuxtData(productsKey)

@@ -10,7 +10,7 @@ export const JSON_BODY_MAX_BYTES = 512 * 1024
  * twice the sheet's own limit), images as multipart (the image's limit plus the form's framing).
  */
 export function bodyLimitFor(path: string): number {
-  if (path.startsWith('/api/imports/')) return 2 * LAB_SHEET_MAX_BYTES
+  if (/^\/api\/lab-sheets(?:[/?]|$)/.test(path)) return 2 * LAB_SHEET_MAX_BYTES
   if (path.startsWith('/api/images')) return IMAGE_MAX_BYTES + 1024 * 1024
   return JSON_BODY_MAX_BYTES
 }

@@ -2,7 +2,8 @@ import { z } from 'zod'
 import { PARTY_MAX } from '../bookings'
 import { isoDateField, personNameField } from './common'
 
-export const hostDayQuerySchema = z.object({ date: isoDateField.optional() })
+/** The day in the path of `/api/days/[date]`: a venue-local calendar date. */
+export const dayParams = z.object({ date: isoDateField })
 
 const reasonField = z.string({ error: 'Give a reason.' }).trim().min(3, { error: 'Say briefly why (at least 3 characters).' }).max(300, { error: 'Keep the reason under 300 characters.' })
 

@@ -80,7 +80,7 @@ const ROUTES: Row[] = [
   { route: 'GET /api/flights/published', path: () => '/api/flights/published', expect: all(200) },
   { route: 'GET /api/flights/[id]', path: f => `/api/flights/${f.flightId}`, expect: all(200) },
   { route: 'GET /api/flights/[id]/sessions', path: f => `/api/flights/${f.flightId}/sessions`, expect: all(200) },
-  { route: 'GET /api/pours/[flightId]/[position]', path: f => `/api/pours/${f.flightId}/1`, expect: all(200) },
+  { route: 'GET /api/flights/[id]/pours/[position]', path: f => `/api/flights/${f.flightId}/pours/1`, expect: all(200) },
   { route: 'GET /api/sessions/[id]/availability', path: f => `/api/sessions/${f.session}/availability`, expect: all(200) },
   { route: 'GET /api/science/curve', path: () => '/api/science/curve?tempC=12', expect: all(200) },
   { route: 'GET /api/science/film', path: () => '/api/science/film?abv=12.5&tempC=12', expect: all(200) },
@@ -91,8 +91,8 @@ const ROUTES: Row[] = [
   { route: 'GET /api/bookings', path: () => '/api/bookings', expect: signedInAll(200) },
   { route: 'POST /api/bookings', path: () => '/api/bookings', body: (f, role) => bookingBody(f.session, { email: 'matrix@example.test', name: 'Matrix Guest', dateOfBirth: role === 'guest' ? f.guestDateOfBirth : '1990-05-14' }, 1), expect: only({ guest: 201, otherGuest: 201 }) },
   { route: 'GET /api/bookings/[id]', path: f => `/api/bookings/${f.heldBooking}`, expect: owner(200) },
-  { route: 'GET /api/bookings/[id]/calendar.ics', path: f => `/api/bookings/${f.paidBooking}/calendar.ics`, expect: owner(200) },
-  { route: 'GET /api/bookings/[id]/qr.svg', path: f => `/api/bookings/${f.paidBooking}/qr.svg`, expect: owner(200) },
+  { route: 'GET /bookings/[id]/calendar.ics', path: f => `/bookings/${f.paidBooking}/calendar.ics`, expect: owner(200) },
+  { route: 'GET /bookings/[id]/qr.svg', path: f => `/bookings/${f.paidBooking}/qr.svg`, expect: owner(200) },
   { route: 'POST /api/bookings/[id]/release', path: f => `/api/bookings/${f.heldBooking}/release`, expect: owner(200) },
   { route: 'POST /api/bookings/[id]/cancel', path: f => `/api/bookings/${f.paidBooking}/cancel`, expect: owner(200) },
   // Staff reading
@@ -103,18 +103,18 @@ const ROUTES: Row[] = [
   { route: 'GET /api/sessions/[id]', path: f => `/api/sessions/${f.session}`, expect: staff(200) },
   // The host's day: only the session's host or a manager; the matrix session has no host and is
   // not today, so a manager passes the guard and meets the day rule (409).
-  { route: 'GET /api/host/day', path: () => '/api/host/day', expect: only({ host: 200, manager: 200 }) },
-  { route: 'POST /api/host/bookings/[id]/check-in', path: f => `/api/host/bookings/${f.paidBooking}/check-in`, body: () => ({ seated: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
-  { route: 'POST /api/host/bookings/[id]/turn-away', path: f => `/api/host/bookings/${f.paidBooking}/turn-away`, body: () => ({ reason: 'No photo ID' }), expect: only({ manager: 409 }) },
-  { route: 'POST /api/host/bookings/[id]/no-show', path: f => `/api/host/bookings/${f.paidBooking}/no-show`, expect: only({ manager: 409 }) },
-  { route: 'POST /api/host/sessions/[id]/walk-ins', path: f => `/api/host/sessions/${f.session}/walk-ins`, body: () => ({ contactName: 'Matrix Walk-in', partySize: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
-  { route: 'GET /api/cards/sessions/[id]', path: f => `/api/cards/sessions/${f.session}`, expect: only({ manager: 200 }) },
+  { route: 'GET /api/days/[date]', path: () => `/api/days/${future(0)}`, expect: only({ host: 200, manager: 200 }) },
+  { route: 'POST /api/bookings/[id]/check-in', path: f => `/api/bookings/${f.paidBooking}/check-in`, body: () => ({ seated: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
+  { route: 'POST /api/bookings/[id]/turn-away', path: f => `/api/bookings/${f.paidBooking}/turn-away`, body: () => ({ reason: 'No photo ID' }), expect: only({ manager: 409 }) },
+  { route: 'POST /api/bookings/[id]/no-show', path: f => `/api/bookings/${f.paidBooking}/no-show`, expect: only({ manager: 409 }) },
+  { route: 'POST /api/sessions/[id]/walk-ins', path: f => `/api/sessions/${f.session}/walk-ins`, body: () => ({ contactName: 'Matrix Walk-in', partySize: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
+  { route: 'GET /api/sessions/[id]/cards', path: f => `/api/sessions/${f.session}/cards`, expect: only({ manager: 200 }) },
   // The matrix session has no paid party of its own, so the job is refused as empty (409).
-  { route: 'POST /api/cards/sessions/[id]/jobs', path: f => `/api/cards/sessions/${f.session}/jobs`, body: () => ({ paper: 'a5', names: false }), expect: only({ manager: 409 }) },
-  { route: 'GET /api/cards/jobs/[jobId]', path: () => '/api/cards/jobs/00000000-0000-4000-8000-000000000000', expect: only({ host: 404, manager: 404 }) },
-  { route: 'GET /api/cards/jobs/[jobId]/pdf', path: () => '/api/cards/jobs/00000000-0000-4000-8000-000000000000/pdf', expect: only({ host: 404, manager: 404 }) },
-  { route: 'GET /api/cards/flights/[id]', path: f => `/api/cards/flights/${f.flightId}`, expect: staff(200) },
-  { route: 'GET /api/cards/flights/[id]/pdf', path: f => `/api/cards/flights/${f.flightId}/pdf?paper=a5`, expect: staff(200) },
+  { route: 'POST /api/sessions/[id]/card-jobs', path: f => `/api/sessions/${f.session}/card-jobs`, body: () => ({ paper: 'a5', names: false }), expect: only({ manager: 409 }) },
+  { route: 'GET /api/card-jobs/[jobId]', path: () => '/api/card-jobs/00000000-0000-4000-8000-000000000000', expect: only({ host: 404, manager: 404 }) },
+  { route: 'GET /cards/jobs/[jobId]/cards.pdf', path: () => '/cards/jobs/00000000-0000-4000-8000-000000000000/cards.pdf', expect: only({ host: 404, manager: 404 }) },
+  { route: 'GET /api/flights/[id]/card', path: f => `/api/flights/${f.flightId}/card`, expect: staff(200) },
+  { route: 'GET /cards/flights/[id]/card.pdf', path: f => `/cards/flights/${f.flightId}/card.pdf?paper=a5`, expect: staff(200) },
   { route: 'GET /api/images', path: f => `/api/images?productId=${f.productId}`, expect: staff(200) },
   // Notes and articles
   { route: 'GET /api/content', path: () => '/api/content', expect: editors(200) },
@@ -127,9 +127,9 @@ const ROUTES: Row[] = [
   { route: 'POST /api/images', path: () => '/api/images', body: () => imageForm(), expect: editors(400) },
   { route: 'DELETE /api/images/[id]', path: () => '/api/images/999999999', expect: editors(404) },
   // The manager's work
-  { route: 'GET /api/manage/overview', path: () => '/api/manage/overview', expect: manager(200) },
-  { route: 'GET /api/manage/bookings', path: () => '/api/manage/bookings', expect: manager(200) },
-  { route: 'GET /api/bookings/export.csv', path: () => '/api/bookings/export.csv', expect: manager(200) },
+  { route: 'GET /api/reports/overview', path: () => '/api/reports/overview', expect: manager(200) },
+  { route: 'GET /api/reports/bookings', path: () => '/api/reports/bookings', expect: manager(200) },
+  { route: 'GET /reports/bookings.csv', path: () => '/reports/bookings.csv', expect: manager(200) },
   { route: 'GET /api/staff', path: () => '/api/staff', expect: manager(200) },
   { route: 'POST /api/staff', path: () => '/api/staff', body: () => ({ name: 'Matrix Host', email: uniqueEmail('matrix-host'), role: 'host' }), expect: manager(201) },
   { route: 'PATCH /api/staff/[id]', path: f => `/api/staff/${f.hostId}`, body: () => ({ role: 'host' }), expect: manager(200) },
@@ -138,8 +138,8 @@ const ROUTES: Row[] = [
   { route: 'POST /api/products', path: () => '/api/products', body: productBody, expect: manager(201) },
   { route: 'PATCH /api/products/[id]', path: f => `/api/products/${f.productId}`, body: () => ({ producer: 'Matrix Cellar' }), expect: manager(200) },
   { route: 'POST /api/products/[id]/measurements', path: f => `/api/products/${f.productId}/measurements`, body: () => measurement, expect: manager(201) },
-  { route: 'POST /api/imports/preview', path: () => '/api/imports/preview', body: () => ({ sheet: 'products', csv: toCsv([productRow(`MXI-${runTag()}`)], PRODUCT_COLUMNS) }), expect: manager(200) },
-  { route: 'POST /api/imports/commit', path: () => '/api/imports/commit', body: () => ({ sheet: 'products', csv: toCsv([productRow(`MXC-${runTag()}`)], PRODUCT_COLUMNS), lines: [2] }), expect: manager(201) },
+  { route: 'POST /api/lab-sheets/check', path: () => '/api/lab-sheets/check', body: () => ({ sheet: 'products', csv: toCsv([productRow(`MXI-${runTag()}`)], PRODUCT_COLUMNS) }), expect: manager(200) },
+  { route: 'POST /api/lab-sheets', path: () => '/api/lab-sheets', body: () => ({ sheet: 'products', csv: toCsv([productRow(`MXC-${runTag()}`)], PRODUCT_COLUMNS), lines: [2] }), expect: manager(201) },
   { route: 'POST /api/glasses', path: () => '/api/glasses', body: () => ({ ...glassBody, name: `Matrix tulip ${runTag()}` }), expect: manager(201) },
   { route: 'PATCH /api/glasses/[id]', path: f => `/api/glasses/${f.glassId}`, body: () => glassOriginal, expect: manager(200) },
   { route: 'POST /api/flights', path: () => '/api/flights', body: flightBody, expect: manager(201) },
@@ -271,9 +271,9 @@ describe('access matrix', () => {
     const mine = new Set(((await people.otherGuest.get('/api/bookings')).body as { id: number }[]).map(b => b.id))
     for (let id = Math.max(1, max - 60); id <= max; id++) {
       if (mine.has(id)) continue
-      for (const suffix of ['', '/calendar.ics', '/qr.svg']) {
-        const res = await people.otherGuest.get(`/api/bookings/${id}${suffix}`)
-        expect(res.status, `/api/bookings/${id}${suffix}`).toBe(404)
+      for (const path of [`/api/bookings/${id}`, `/bookings/${id}/calendar.ics`, `/bookings/${id}/qr.svg`]) {
+        const res = await people.otherGuest.get(path)
+        expect(res.status, path).toBe(404)
       }
     }
   })

@@ -60,8 +60,8 @@ const WRITES: WriteRoute[] = [
   { route: 'POST /api/flights/preview', who: 'manager', path: () => '/api/flights/preview', schema: flightPreviewSchema, body: () => ({ pours: [pour()] }) },
   { route: 'POST /api/glasses', who: 'manager', path: () => '/api/glasses', schema: glassSchema, body: () => ({ name: 'Bad input tulip', bowlDiameterMm: 70, wallAngleDeg: 70, fillHeightMm: 30 }) },
   { route: 'PATCH /api/glasses/[id]', who: 'manager', path: () => `/api/glasses/${fx.glassId}`, schema: glassSchema, body: () => ({ name: 'Bad input tulip', bowlDiameterMm: 70, wallAngleDeg: 70, fillHeightMm: 30 }) },
-  { route: 'POST /api/imports/preview', who: 'manager', path: () => '/api/imports/preview', schema: labSheetUploadSchema, body: () => ({ sheet: 'products', csv: toCsv([productRow('BAD-FIXED-1')], PRODUCT_COLUMNS) }) },
-  { route: 'POST /api/imports/commit', who: 'manager', path: () => '/api/imports/commit', schema: labSheetCommitSchema, body: () => ({ sheet: 'products', csv: toCsv([productRow('BAD-FIXED-2')], PRODUCT_COLUMNS), lines: [2] }) },
+  { route: 'POST /api/lab-sheets/check', who: 'manager', path: () => '/api/lab-sheets/check', schema: labSheetUploadSchema, body: () => ({ sheet: 'products', csv: toCsv([productRow('BAD-FIXED-1')], PRODUCT_COLUMNS) }) },
+  { route: 'POST /api/lab-sheets', who: 'manager', path: () => '/api/lab-sheets', schema: labSheetCommitSchema, body: () => ({ sheet: 'products', csv: toCsv([productRow('BAD-FIXED-2')], PRODUCT_COLUMNS), lines: [2] }) },
   { route: 'POST /api/products', who: 'manager', path: () => '/api/products', schema: productCreateSchema, body: () => ({ code: 'BAD-FIXED-3', kind: 'still_wine', name: 'Bad Cuvée', producer: 'Bad Cellar', vintageOrBatch: '2024', servingTempC: 10, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1450, status: 'active', measurement }) },
   { route: 'PATCH /api/products/[id]', who: 'manager', path: () => `/api/products/${fx.productId}`, schema: productPatchSchema, body: () => ({ name: 'Bad Cuvée', producer: 'Bad Cellar', bottleSizeMl: 750 }) },
   { route: 'POST /api/products/[id]/measurements', who: 'manager', path: () => `/api/products/${fx.productId}/measurements`, schema: measurementSchema, body: () => ({ ...measurement }) },
@@ -211,7 +211,7 @@ describe('bad input to every write route', () => {
   it.each(WRITES.map(w => [w.route, w] as const))('%s', { timeout: 120_000 }, async (_route, w) => {
     const [method] = w.route.split(' ')
     for (const v of variants(w.body())) {
-      const expectRefused = refused(w.schema, v.body, w.path().startsWith('/api/imports/') ? 10 * 1024 * 1024 : 512 * 1024) // the server's body limits (server/utils/bodyLimit.ts)
+      const expectRefused = refused(w.schema, v.body, w.path().startsWith('/api/lab-sheets') ? 10 * 1024 * 1024 : 512 * 1024) // the server's body limits (server/utils/bodyLimit.ts)
       const before = expectRefused ? await rowCounts() : null
       const res = await people[w.who].request(method!, w.path(), v.body, { 'content-type': 'application/json' })
       const what = `${w.route} with ${v.name}`
@@ -233,7 +233,7 @@ describe('bad input to every write route', () => {
     const rows = Array.from({ length: 8000 }, (_, i) => productRow(`BIG-${runTag()}-${i}`))
     const csv = toCsv(rows, PRODUCT_COLUMNS)
     expect(csv.length).toBeGreaterThan(1024 * 1024)
-    const res = await people.manager.post('/api/imports/preview', { sheet: 'products', csv })
+    const res = await people.manager.post('/api/lab-sheets/check', { sheet: 'products', csv })
     expect(res.status, JSON.stringify(res.body).slice(0, 200)).toBe(200)
   })
 })
@@ -241,21 +241,21 @@ describe('bad input to every write route', () => {
 const ODD_IDS = ['abc', '-1', '0', '1.5', '1e400', '99999999999999999999', '%00', '%F0%9F%8D%B7', '%E2%80%AE1', '%D8%00', '..%2F..%2Fetc', 'x'.repeat(5000)]
 const READS: { route: string, who: Who, paths: (id: string) => string[] }[] = [
   { route: 'GET /api/flights/[id] and its sessions', who: 'anonymous', paths: id => [`/api/flights/${id}`, `/api/flights/${id}/sessions`] },
-  { route: 'GET /api/pours/[flightId]/[position]', who: 'anonymous', paths: id => [`/api/pours/${id}/1`, `/api/pours/${fx.flightId}/${id}`] },
+  { route: 'GET /api/flights/[id]/pours/[position]', who: 'anonymous', paths: id => [`/api/flights/${id}/pours/1`, `/api/flights/${fx.flightId}/pours/${id}`] },
   { route: 'GET /api/sessions/[id]/availability', who: 'anonymous', paths: id => [`/api/sessions/${id}/availability`] },
   { route: 'GET /api/articles/[slug]', who: 'anonymous', paths: id => [`/api/articles/${id}`] },
   { route: 'GET /media/[name]', who: 'anonymous', paths: id => [`/media/${id}`, `/media/${id}.webp`] },
-  { route: 'guest booking routes', who: 'guest', paths: id => [`/api/bookings/${id}`, `/api/bookings/${id}/calendar.ics`, `/api/bookings/${id}/qr.svg`] },
-  { route: 'staff routes by id', who: 'manager', paths: id => [`/api/products/${id}`, `/api/sessions/${id}`, `/api/cards/flights/${id}`, `/api/cards/flights/${id}/pdf`, `/api/content/product_note/${id}`, `/api/content/${id}/1`, `/api/content/article/${id}/revisions`] },
+  { route: 'guest booking routes', who: 'guest', paths: id => [`/api/bookings/${id}`, `/bookings/${id}/calendar.ics`, `/bookings/${id}/qr.svg`] },
+  { route: 'staff routes by id', who: 'manager', paths: id => [`/api/products/${id}`, `/api/sessions/${id}`, `/api/flights/${id}/card`, `/cards/flights/${id}/card.pdf`, `/api/content/product_note/${id}`, `/api/content/${id}/1`, `/api/content/article/${id}/revisions`] },
   { route: 'write routes by id', who: 'manager', paths: id => [`/api/flights/${id}/publish`, `/api/sessions/${id}/cancel`, `/api/staff/${id}/invitation`, `/api/bookings/${id}/cancel`] },
 ]
 const ODD_QUERIES = [
   '/api/science/film?abv=abc&tempC=12', '/api/science/film?abv=1e308&tempC=12', '/api/science/film?abv[]=1&tempC=12', '/api/science/film?abv=12&tempC=-1e9',
   '/api/science/film', '/api/science/curve?tempC=%00', '/api/science/curve?tempC=12&sugarGL=-5', `/api/science/curve?tempC=${'9'.repeat(5000)}`,
   '/api/sessions?from=not-a-date', '/api/sessions?from=2026-02-30', '/api/sessions?status=gone', '/api/sessions?flightId=-3',
-  '/api/manage/bookings?from=2026-12-01&to=2026-01-01', '/api/manage/bookings?flightId=abc', '/api/bookings/export.csv?to=%E2%80%AE',
-  '/api/images?productId=abc', '/api/images', '/api/cards/flights/1/pdf?copies=1000000', '/api/cards/flights/1/pdf?paper=a0',
-  '/api/cards/flights/1/pdf?copies=2&copies=3', '/media/00000000000000000000000000000000.webp?w=999999', '/media/00000000000000000000000000000000.webp?q=-1',
+  '/api/reports/bookings?from=2026-12-01&to=2026-01-01', '/api/reports/bookings?flightId=abc', '/reports/bookings.csv?to=%E2%80%AE',
+  '/api/images?productId=abc', '/api/images', '/cards/flights/1/card.pdf?copies=1000000', '/cards/flights/1/card.pdf?paper=a0',
+  '/cards/flights/1/card.pdf?copies=2&copies=3', '/media/00000000000000000000000000000000.webp?w=999999', '/media/00000000000000000000000000000000.webp?q=-1',
 ]
 
 describe('odd ids and queries on every read route', () => {

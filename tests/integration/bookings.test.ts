@@ -61,6 +61,18 @@ describe('holding seats and paying', () => {
     const png = Buffer.from(stored!.attachments!.find(a => a.filename.endsWith('.png'))!.contentBase64, 'base64')
     expect(png.subarray(0, 8).toString('hex')).toBe('89504e470d0a1a0a') // PNG signature, ISO/IEC 15948
     expect(await countRows('payment_events', 'booking_id = ? AND type = ?', [res.body.booking.id, 'checkout.session.completed'])).toBe(1)
+
+    // The booking page's own downloads: the same calendar entry and the reference as a QR code.
+    const calendar = await guest.client.raw(`/bookings/${res.body.booking.id}/calendar.ics`)
+    expect(calendar.status).toBe(200)
+    expect(calendar.headers.get('content-type')).toBe('text/calendar; charset=utf-8')
+    expect(calendar.headers.get('content-disposition')).toMatch(/^attachment; filename=".+\.ics"$/)
+    expect(await calendar.text()).toContain(`DTSTART:${startUtc}`)
+    const qr = await guest.client.raw(`/bookings/${res.body.booking.id}/qr.svg`)
+    expect(qr.status).toBe(200)
+    expect(qr.headers.get('content-type')).toBe('image/svg+xml; charset=utf-8')
+    expect(qr.headers.get('cache-control')).toBe('private, max-age=3600')
+    expect(await qr.text()).toContain('<svg')
   })
 
   it('a replayed event changes nothing', async () => {
@@ -385,13 +397,13 @@ describe('the manager', () => {
     await bookAndPay(formula, session.id, 1)
     const day = new Intl.DateTimeFormat('en-CA', { timeZone: DEMO_VENUE.timeZone }).format(new Date(session.startsAt)) // en-CA formats as YYYY-MM-DD
 
-    const report = await manager.get(`/api/manage/bookings?from=${day}&to=${day}`)
+    const report = await manager.get(`/api/reports/bookings?from=${day}&to=${day}`)
     expect(report.status).toBe(200)
     const row = report.body.sessions.find((s: { session: { id: number } }) => s.session.id === session.id)
     expect(row).toMatchObject({ seatsTaken: 3, fillRate: 0.3, paidMinor: 12750, refundedMinor: 0, revenueMinor: 12750 })
     expect(row.bookings).toHaveLength(2)
 
-    const csv = await manager.get<string>(`/api/bookings/export.csv?from=${day}&to=${day}`)
+    const csv = await manager.get<string>(`/reports/bookings.csv?from=${day}&to=${day}`)
     expect(csv.status).toBe(200)
     expect(csv.headers.get('content-type')).toMatch(/^text\/csv/)
     expect(csv.headers.get('content-disposition')).toMatch(/attachment; filename="bookings-/)
@@ -403,7 +415,7 @@ describe('the manager', () => {
     expect(mine.find(r => r.Guest?.includes('HYPERLINK'))!.Guest).toBe(`'${formula.name}`) // OWASP: CSV injection
     expect(mine[0]!['Session start']).toBe(new Intl.DateTimeFormat('sv-SE', { timeZone: DEMO_VENUE.timeZone, dateStyle: 'short', timeStyle: 'short' }).format(new Date(session.startsAt))) // sv-SE formats as YYYY-MM-DD HH:MM
 
-    const bad = await manager.get('/api/manage/bookings?from=2026-13-01&to=x')
+    const bad = await manager.get('/api/reports/bookings?from=2026-13-01&to=x')
     expect(bad.status).toBe(400)
     expect(Object.keys(bad.body.data.fields).sort()).toEqual(['from', 'to'])
   })
@@ -440,8 +452,8 @@ describe('public pages and role checks', () => {
     ['POST', '/api/bookings/1/release'],
   ]
   const managerRoutes: [string, string][] = [
-    ['GET', '/api/manage/bookings'],
-    ['GET', '/api/bookings/export.csv'],
+    ['GET', '/api/reports/bookings'],
+    ['GET', '/reports/bookings.csv'],
     ['POST', '/api/sessions/1/cancel'],
   ]
 

@@ -39,7 +39,7 @@ beforeAll(async () => {
 
 describe('card data', () => {
   it('has every pour, in order, with ABV, volume, grams and standard drinks (US definition)', async () => {
-    const { body: card } = await (await signedIn('host')).get(`/api/cards/flights/${flightId}`)
+    const { body: card } = await (await signedIn('host')).get(`/api/flights/${flightId}/card`)
     expect(card.pours.map((p: { name: string }) => p.name)).toEqual(INVENTED.map(p => p.name))
     INVENTED.forEach((p, i) => {
       const c = card.pours[i]
@@ -65,7 +65,7 @@ describe('card data', () => {
     const { id, ...settings } = venue
     await manager.patch('/api/venue', { ...settings, standardDrinkKind: 'uk' })
     try {
-      const { body: card } = await manager.get(`/api/cards/flights/${flightId}`)
+      const { body: card } = await manager.get(`/api/flights/${flightId}/card`)
       INVENTED.forEach((p, i) => {
         expect(card.pours[i].standardDrinks).toBeCloseTo(p.ml * p.abv / 100 * ETHANOL_G_PER_ML / 8, 2) // NHS: one UK unit = 8 g of ethanol
         // The NHS rule of thumb, ABV × mL / 1000, agrees to within the rounding of 7.89 g to 8 g.
@@ -84,9 +84,13 @@ describe('card PDF', () => {
     ['a5', 419.53, 595.28], // ISO 216 A5: 148 × 210 mm
     ['half-letter', 396, 612], // US half letter: 5.5 × 8.5 in
   ])('%s: one page for six pours, the right size, Lora embedded, every pour in the text', async (paper, w, h) => {
-    const res = await manager.raw(`/api/cards/flights/${flightId}/pdf?paper=${paper}`)
+    const res = await manager.raw(`/cards/flights/${flightId}/card.pdf?paper=${paper}`)
     expect(res.status).toBe(200)
     expect(res.headers.get('content-type')).toBe('application/pdf')
+    expect(res.headers.get('content-disposition')).toBe(`inline; filename="flight-${flightId}-${paper}.pdf"`)
+    expect(res.headers.get('cache-control')).toBe('no-store')
+    // The browser's own PDF viewer must be allowed to show it (nuxt.config.ts route rule).
+    expect(res.headers.get('content-security-policy')).toBe('frame-ancestors \'self\'')
     mkdirSync(SHOTS_DIR, { recursive: true })
     const pdf = inspectPdf(Buffer.from(await res.arrayBuffer()), `card-${paper}`)
     expect(pdf.pages).toBe(1)
@@ -102,29 +106,29 @@ describe('card PDF', () => {
   })
 
   it('prints several copies, one card per page, and refuses bad options', async () => {
-    const res = await manager.raw(`/api/cards/flights/${flightId}/pdf?copies=3`)
+    const res = await manager.raw(`/cards/flights/${flightId}/card.pdf?copies=3`)
     expect(inspectPdf(Buffer.from(await res.arrayBuffer())).pages).toBe(3)
-    const bad = await manager.get(`/api/cards/flights/${flightId}/pdf?paper=a4&copies=0`)
+    const bad = await manager.get(`/cards/flights/${flightId}/card.pdf?paper=a4&copies=0`)
     expect(bad.status).toBe(400)
     expect(Object.keys(bad.body.data.fields).sort()).toEqual(['copies', 'paper'])
   })
 
   it('staff only: anonymous 401, guest 403', async () => {
-    expect((await new Client().get(`/api/cards/flights/${flightId}`)).status).toBe(401)
-    expect((await (await signedIn('guest')).get(`/api/cards/flights/${flightId}/pdf`)).status).toBe(403)
+    expect((await new Client().get(`/api/flights/${flightId}/card`)).status).toBe(401)
+    expect((await (await signedIn('guest')).get(`/cards/flights/${flightId}/card.pdf`)).status).toBe(403)
   })
 })
 
 describe('public pour page', () => {
   it('answers for a published flight\'s pour, without sign-in; 404 for drafts and missing pours', async () => {
     const anon = new Client()
-    const res = await anon.get(`/api/pours/${flightId}/5`)
+    const res = await anon.get(`/api/flights/${flightId}/pours/5`)
     expect(res.status).toBe(200)
     expect(res.body.pour.name).toBe('Lantern Tawny')
     expect(res.body.description.at(-1)).toMatch(/quality/)
-    expect((await anon.get(`/api/pours/${flightId}/7`)).status).toBe(404)
-    expect((await anon.get(`/api/pours/${flightId}/0`)).status).toBe(400)
+    expect((await anon.get(`/api/flights/${flightId}/pours/7`)).status).toBe(404)
+    expect((await anon.get(`/api/flights/${flightId}/pours/0`)).status).toBe(400)
     const draft = await manager.post('/api/flights', { name: 'Draft for pour page', pours: [(await manager.get(`/api/flights/${flightId}`)).body.pours[0], (await manager.get(`/api/flights/${flightId}`)).body.pours[1]].map((p: { productId: number, volumeMl: number, glass: { id: number }, servingTempC: number }) => ({ productId: p.productId, volumeMl: p.volumeMl, glassId: p.glass.id, servingTempC: p.servingTempC })) })
-    expect((await anon.get(`/api/pours/${draft.body.id}/1`)).status).toBe(404)
+    expect((await anon.get(`/api/flights/${draft.body.id}/pours/1`)).status).toBe(404)
   })
 })

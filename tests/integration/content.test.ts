@@ -32,7 +32,7 @@ describe('tasting notes', () => {
     expect(saved.body.status).toBe('draft')
     const before = (await new Client().get(`/api/flights/${flightId}`)).body
     expect(before.pours.find((p: { productId: number }) => p.productId === productId).tastingNote).toBeNull()
-    expect((await manager.get(`/api/cards/flights/${flightId}`)).body.pours.find((p: { name: string }) => p.name === 'Tidewater Albariño').tastingNote).toBeNull()
+    expect((await manager.get(`/api/flights/${flightId}/card`)).body.pours.find((p: { name: string }) => p.name === 'Tidewater Albariño').tastingNote).toBeNull()
 
     expect((await marketing.post(`/api/content/product_note/${productId}/publish`)).body.status).toBe('published')
     const pour = (await new Client().get(`/api/flights/${flightId}`)).body.pours.find((p: { productId: number }) => p.productId === productId)
@@ -43,7 +43,7 @@ describe('tasting notes', () => {
     expect(html).not.toMatch(/<[^>]+\son\w+\s*=/i) // no event-handler attribute inside a tag
     expect(html).not.toMatch(/href\s*=\s*["']?\s*javascript:/i) // no javascript: link
     expect(html).toContain('&lt;script&gt;')
-    const card = (await manager.get(`/api/cards/flights/${flightId}`)).body
+    const card = (await manager.get(`/api/flights/${flightId}/card`)).body
     expect(card.pours.find((p: { name: string }) => p.name === 'Tidewater Albariño').tastingNote).toMatch(/^Salt and stone .*quince/)
 
     // A later draft does not replace what guests see until it is published.

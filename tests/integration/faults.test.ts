@@ -108,7 +108,7 @@ describe('the database stops', () => {
     })
     let res: Reply | undefined
     try {
-      const pending = manager.post('/api/imports/commit', { sheet: 'products', csv, lines })
+      const pending = manager.post('/api/lab-sheets', { sheet: 'products', csv, lines })
       await new Promise(r => setTimeout(r, 250))
       await stopDb(DB)
       res = await within(20_000, 'the import', pending)
@@ -124,7 +124,7 @@ describe('the database stops', () => {
       expectUnavailable(res, 'import')
       expect(n, 'all or nothing').toBe(0)
     }
-    const again = await manager.post('/api/imports/commit', { sheet: 'products', csv: bigProductsSheet(3, `${tag}B`), lines: [2, 3, 4] })
+    const again = await manager.post('/api/lab-sheets', { sheet: 'products', csv: bigProductsSheet(3, `${tag}B`), lines: [2, 3, 4] })
     expect(again.status, JSON.stringify(again.body)).toBe(201)
   })
 })

@@ -25,7 +25,7 @@ describe('lab-sheet import', () => {
   })
 
   async function preview(sheet: 'products' | 'measurements', csv: string) {
-    const res = await manager.post('/api/imports/preview', { sheet, csv })
+    const res = await manager.post('/api/lab-sheets/check', { sheet, csv })
     expect(res.status).toBe(200)
     expect(res.headers.get('content-type')).toMatch(/application\/x-ndjson/)
     const lines = ndjsonLines(res.body)
@@ -47,7 +47,7 @@ describe('lab-sheet import', () => {
 
     const products = await countRows('products')
     const measurements = await countRows('product_measurements')
-    const res = await manager.post('/api/imports/commit', { sheet: 'products', csv, lines: check.rows.map(r => r.line) })
+    const res = await manager.post('/api/lab-sheets', { sheet: 'products', csv, lines: check.rows.map(r => r.line) })
     expect(res.status).toBe(201)
     expect(res.body.imported).toBe(20)
     expect(await countRows('products')).toBe(products + 20)
@@ -107,26 +107,26 @@ describe('lab-sheet import', () => {
     const sheet = productsErrorSheet(tag)
     const products = await countRows('products')
     const measurements = await countRows('product_measurements')
-    const res = await manager.post('/api/imports/commit', { sheet: 'products', csv: sheet.csv, lines: [2, 3] })
+    const res = await manager.post('/api/lab-sheets', { sheet: 'products', csv: sheet.csv, lines: [2, 3] })
     expect(res.status).toBe(400)
     expect(res.body.message).toMatch(/cannot be imported: 3/)
     expect(await countRows('products')).toBe(products)
     expect(await countRows('product_measurements')).toBe(measurements)
-    const none = await manager.post('/api/imports/commit', { sheet: 'products', csv: sheet.csv, lines: [] })
+    const none = await manager.post('/api/lab-sheets', { sheet: 'products', csv: sheet.csv, lines: [] })
     expect(none.status).toBe(400)
     expect(none.body.data.fields.lines).toBeTruthy()
-    const bad = await manager.post('/api/imports/preview', { sheet: 'wines', csv: '' })
+    const bad = await manager.post('/api/lab-sheets/check', { sheet: 'wines', csv: '' })
     expect(bad.status).toBe(400)
     expect(Object.keys(bad.body.data.fields).sort()).toEqual(['csv', 'sheet'])
 
-    const good = await manager.post('/api/imports/commit', { sheet: 'products', csv: sheet.csv, lines: sheet.validLines })
+    const good = await manager.post('/api/lab-sheets', { sheet: 'products', csv: sheet.csv, lines: sheet.validLines })
     expect(good.status).toBe(201)
     expect(await countRows('products')).toBe(products + 1)
   })
 
   it('streams progress while it checks a 5,000-row sheet, then the result', async () => {
     const csv = bigProductsSheet(5000, `${tag}B`)
-    const res = await manager.send('POST', '/api/imports/preview', { sheet: 'products', csv })
+    const res = await manager.send('POST', '/api/lab-sheets/check', { sheet: 'products', csv })
     expect(res.status).toBe(200)
     const reader = res.body!.pipeThrough(new TextDecoderStream()).getReader()
     const first = await reader.read()
@@ -158,7 +158,7 @@ describe('lab-sheet import', () => {
     const cider = list.find(p => p.code === 'SV-CID-21')!
     const before = (await manager.get(`/api/products/${cider.id}`)).body
 
-    const res = await manager.post('/api/imports/commit', { sheet: 'measurements', csv, lines: check.rows.map(r => r.line) })
+    const res = await manager.post('/api/lab-sheets', { sheet: 'measurements', csv, lines: check.rows.map(r => r.line) })
     expect(res.status).toBe(201)
     expect(res.body.imported).toBe(check.rows.length)
     expect(await countRows('product_measurements')).toBe(measurements + check.rows.length)
@@ -179,7 +179,7 @@ describe('lab-sheet import', () => {
     expect(check.rows.filter(r => !Object.keys(r.errors).length).map(r => r.line)).toEqual(sheet.validLines)
     for (const e of sheet.expected) expect(rowAt(check, e.line).errors[e.column], `${e.what} on line ${e.line}`).toMatch(e.message)
     const measurements = await countRows('product_measurements')
-    expect((await manager.post('/api/imports/commit', { sheet: 'measurements', csv: sheet.csv, lines: [2, 3] })).status).toBe(400)
+    expect((await manager.post('/api/lab-sheets', { sheet: 'measurements', csv: sheet.csv, lines: [2, 3] })).status).toBe(400)
     expect(await countRows('product_measurements')).toBe(measurements)
   })
 })

@@ -23,17 +23,17 @@ describe('role guards', () => {
 
   const staffRoutes: [string, string, unknown?][] = [
     ['GET', '/api/staff'],
-    ['GET', '/api/manage/overview'],
+    ['GET', '/api/reports/overview'],
     ['POST', '/api/staff', { name: 'N', email: 'n@example.test', role: 'host' }],
     ['PATCH', '/api/staff/2', { role: 'host' }],
     ['PATCH', '/api/venue', {}],
     ['POST', '/api/products', {}],
     ['PATCH', '/api/products/1', { name: 'N' }],
     ['POST', '/api/products/1/measurements', {}],
-    ['POST', '/api/imports/preview', { sheet: 'products', csv: 'code\nX' }],
-    ['POST', '/api/imports/commit', { sheet: 'products', csv: 'code\nX', lines: [2] }],
-    ['GET', '/api/manage/bookings'],
-    ['GET', '/api/bookings/export.csv'],
+    ['POST', '/api/lab-sheets/check', { sheet: 'products', csv: 'code\nX' }],
+    ['POST', '/api/lab-sheets', { sheet: 'products', csv: 'code\nX', lines: [2] }],
+    ['GET', '/api/reports/bookings'],
+    ['GET', '/reports/bookings.csv'],
     ['POST', '/api/sessions/1/cancel'],
   ]
 
@@ -48,7 +48,7 @@ describe('role guards', () => {
 
   it('the manager reads the staff list and the overview', async () => {
     expect((await people.manager.get('/api/staff')).status).toBe(200)
-    const overview = await people.manager.get('/api/manage/overview')
+    const overview = await people.manager.get('/api/reports/overview')
     expect(overview.body.activeProducts).toBeGreaterThanOrEqual(6) // the demo has 6; other tests add more
   })
 

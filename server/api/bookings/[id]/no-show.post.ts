@@ -1,4 +1,4 @@
-import { idParam } from '../../../../../shared/schemas/common'
+import { idParam } from '../../../../shared/schemas/common'
 
 /** After the start, a party that has not come is marked as a no-show. */
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { cardJobParams } from '../../../../shared/schemas/cards'
+import { cardJobParams } from '../../../shared/schemas/cards'
 
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'host', 'manager')

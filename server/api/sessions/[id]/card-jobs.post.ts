@@ -1,5 +1,5 @@
-import { idParam } from '../../../../../shared/schemas/common'
-import { sessionCardsSchema } from '../../../../../shared/schemas/cards'
+import { idParam } from '../../../../shared/schemas/common'
+import { sessionCardsSchema } from '../../../../shared/schemas/cards'
 
 /** Starts one PDF of a session's cards (one per seated guest); poll the job for progress. */
 export default defineEventHandler(async (event) => {

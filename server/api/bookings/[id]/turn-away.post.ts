@@ -1,5 +1,5 @@
-import { idParam } from '../../../../../shared/schemas/common'
-import { turnAwaySchema } from '../../../../../shared/schemas/host'
+import { idParam } from '../../../../shared/schemas/common'
+import { turnAwaySchema } from '../../../../shared/schemas/host'
 
 /** The party is not served (no ID, already intoxicated…): recorded with the reason; it ends as a no-show. */
 export default defineEventHandler(async (event) => {

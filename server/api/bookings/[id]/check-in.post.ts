@@ -1,5 +1,5 @@
-import { idParam } from '../../../../../shared/schemas/common'
-import { checkInSchema } from '../../../../../shared/schemas/host'
+import { idParam } from '../../../../shared/schemas/common'
+import { checkInSchema } from '../../../../shared/schemas/host'
 
 /** A party arrives: seat those whose ID was seen; the booking moves to checked in. */
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { idParam } from '../../../../../shared/schemas/common'
-import { walkInSchema } from '../../../../../shared/schemas/host'
+import { idParam } from '../../../../shared/schemas/common'
+import { walkInSchema } from '../../../../shared/schemas/host'
 
 /**
  * Seats a walk-in party in seats left, with every ID checked: a booking made at the door (paid at

@@ -1,20 +1,20 @@
 import { z } from 'zod'
-import { describePour } from '../../../../shared/science'
-import { buildFlightCard } from '../../../../shared/cards'
+import { describePour } from '../../../../../shared/science'
+import { buildFlightCard } from '../../../../../shared/cards'
 
 const params = z.object({
-  flightId: z.coerce.number({ error: 'The flight id must be a number.' }).int().positive({ error: 'The flight id must be positive.' }),
+  id: z.coerce.number({ error: 'The flight id must be a number.' }).int().positive({ error: 'The flight id must be positive.' }),
   position: z.coerce.number({ error: 'The pour number must be a number.' }).int().min(1, { error: 'Pours are numbered from 1.' }).max(8, { error: 'A flight has at most 8 pours.' }),
 })
 
 /** One pour of a published flight, as its card's QR code opens it: no sign-in needed. */
 export default defineEventHandler(async (event) => {
-  const { flightId, position } = await readParamsAs(event, params)
+  const { id, position } = await readParamsAs(event, params)
   const venue = await getVenue()
-  const view = await flightView(venue, await loadFlight(venue, flightId, { publishedOnly: true }))
+  const view = await flightView(venue, await loadFlight(venue, id, { publishedOnly: true }))
   const pour = view.pours.find(p => p.position === position)
   if (!pour) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'This flight has no such pour.' })
-  const card = buildFlightCard({ venue, flight: { ...view, pours: [pour] }, publicUrl: appLink(`/pour/${flightId}`) })
+  const card = buildFlightCard({ venue, flight: { ...view, pours: [pour] }, publicUrl: appLink(`/pour/${id}`) })
   return {
     venue: { name: venue.name, temperatureUnit: venue.temperatureUnit },
     flight: { id: view.id, name: view.name, pourCount: view.pours.length },
