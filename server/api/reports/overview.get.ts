@@ -1,7 +1,8 @@
 import { and, count, eq, isNull, sql } from 'drizzle-orm'
+import type { ManagerOverview } from '../../../shared/types/reports'
 
 /** The manager's first screen: who works here, who has signed up, what is on the list, mail health. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<ManagerOverview> => {
   await requireRole(event, 'manager')
   const db = useDb()
   const venue = await getVenue()

@@ -1,8 +1,9 @@
 import { idParam } from '../../../../shared/schemas/common'
 import { sessionCardsSchema } from '../../../../shared/schemas/cards'
+import type { CardJobStarted } from '../../../../shared/types/host'
 
 /** Starts one PDF of a session's cards (one per seated guest); poll the job for progress. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<CardJobStarted> => {
   const { id } = await readParamsAs(event, idParam)
   const { paper, names } = await readBodyAs(event, sessionCardsSchema)
   const { user, venue, session } = await requireSessionHost(event, id)

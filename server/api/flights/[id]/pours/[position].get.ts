@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { describePour } from '../../../../../shared/science'
 import { buildFlightCard } from '../../../../../shared/cards'
+import type { PourPage } from '../../../../../shared/types/cards'
 
 const params = z.object({
   id: z.coerce.number({ error: 'The flight id must be a number.' }).int().positive({ error: 'The flight id must be positive.' }),
@@ -8,7 +9,7 @@ const params = z.object({
 })
 
 /** One pour of a published flight, as its card's QR code opens it: no sign-in needed. */
-export default defineEventHandler(async (event) => {
+export default defineEventHandler(async (event): Promise<PourPage> => {
   const { id, position } = await readParamsAs(event, params)
   const venue = await getVenue()
   const view = await flightView(venue, await loadFlight(venue, id, { publishedOnly: true }))
