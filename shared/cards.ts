@@ -47,13 +47,13 @@ export interface CardFlightInput {
   intro?: { html: string, text: string } | null
 }
 
-export const ALLERGEN_LABELS: Record<Allergen, string> = {
+const ALLERGEN_LABELS: Record<Allergen, string> = {
   sulfites: 'sulfites', gluten: 'gluten', milk: 'milk', egg: 'egg', fish: 'fish', nuts: 'tree nuts', soy: 'soy', celery: 'celery',
   mustard: 'mustard', sesame: 'sesame', lupin: 'lupin', molluscs: 'molluscs', crustaceans: 'crustaceans', peanuts: 'peanuts',
 }
 
 /** Why it happens, said once per card (each pour's own numbers are in its lines). */
-export const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film turns more watery and its surface tension rises above the wine\'s. That stronger pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears.'
+const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film turns more watery and its surface tension rises above the wine\'s. That stronger pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears.'
 
 export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, guestName?: string | null, sessionLabel?: string | null }): FlightCard {
   const { venue, flight } = opts

@@ -58,7 +58,7 @@ export function productBody(v: ProductFormValues, units: FormUnits) {
   }
 }
 
-export function measurementBody(v: MeasurementFormValues) {
+function measurementBody(v: MeasurementFormValues) {
   return {
     abvPctVol: numberOrNothing(v.abvPctVol),
     residualSugarGL: numberOrNothing(v.residualSugarGL),
@@ -101,7 +101,7 @@ export function productFormValues(p: ProductView | null, units: FormUnits): Prod
 }
 
 /** Today in the venue's zone, as YYYY-MM-DD. */
-export function venueDateToday(timeZone: string): string {
+function venueDateToday(timeZone: string): string {
   return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date())
 }
 

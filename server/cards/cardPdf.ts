@@ -10,7 +10,7 @@ import type { FlightCard } from '../../shared/types/cards'
 
 export type CardPaper = 'a5' | 'half-letter'
 /** A5 is 148 × 210 mm; US half letter is 5.5 × 8.5 in (ISO 216; ANSI/ASME Y14.1), in PDF points. */
-export const PAPER_POINTS: Record<CardPaper, [number, number]> = { 'a5': [419.53, 595.28], 'half-letter': [396, 612] }
+const PAPER_POINTS: Record<CardPaper, [number, number]> = { 'a5': [419.53, 595.28], 'half-letter': [396, 612] }
 export interface CardFonts { regular: Buffer, semibold: Buffer, italic: Buffer }
 
 const INK = '#1e2326'

@@ -3,7 +3,7 @@ import { IMAGE_MAX_BYTES } from '../../shared/content'
 import { LAB_SHEET_MAX_BYTES } from '../../shared/labSheet'
 
 /** Largest JSON body an ordinary route reads: the longest text any form sends is 50,000 characters. */
-export const JSON_BODY_MAX_BYTES = 512 * 1024
+const JSON_BODY_MAX_BYTES = 512 * 1024
 
 /**
  * The most a request body may hold on this path: lab sheets travel as JSON text (escaped, so up to

@@ -56,7 +56,7 @@ export function sessionCalendarFile(c: BookingMailContext, link: string): Outbox
 }
 
 /** The booking reference as a QR code, for the host to scan at the door. */
-export async function referenceQrFile(reference: string): Promise<OutboxAttachment> {
+async function referenceQrFile(reference: string): Promise<OutboxAttachment> {
   const png = await QRCode.toBuffer(reference, { type: 'png', width: 320, margin: 2, errorCorrectionLevel: 'M' })
   return { filename: `booking-${reference}-qr.png`, contentType: 'image/png', contentBase64: png.toString('base64') }
 }

@@ -35,7 +35,7 @@ export type DbErrorKind = 'duplicate_key' | 'deadlock' | 'lock_wait_timeout'
 const ERRNO_KINDS: Record<number, DbErrorKind> = { 1062: 'duplicate_key', 1213: 'deadlock', 1205: 'lock_wait_timeout' }
 const CODE_KINDS: Record<string, DbErrorKind> = { ER_DUP_ENTRY: 'duplicate_key', ER_LOCK_DEADLOCK: 'deadlock', ER_LOCK_WAIT_TIMEOUT: 'lock_wait_timeout' }
 
-export function dbErrorKind(error: unknown): DbErrorKind | null {
+function dbErrorKind(error: unknown): DbErrorKind | null {
   let e: unknown = error
   for (let depth = 0; e && typeof e === 'object' && depth < 6; depth++) {
     const { errno, code, cause } = e as { errno?: unknown, code?: unknown, cause?: unknown }

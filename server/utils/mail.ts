@@ -47,7 +47,7 @@ export async function queueMail(tx: Tx, message: MailMessage): Promise<void> {
 let flushing: Promise<number> | null = null
 
 /** Sends every due message once; safe to call often (one flush at a time per process). */
-export function flushOutbox(): Promise<number> {
+function flushOutbox(): Promise<number> {
   flushing ??= sendDue().finally(() => { flushing = null })
   return flushing
 }

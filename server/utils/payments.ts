@@ -28,7 +28,7 @@ export function useStripe(): Stripe {
 }
 
 /** True when the SDK talks to the local fake rather than to Stripe. */
-export const usingLocalStripe = () => Boolean(useRuntimeConfig().stripe.apiHost)
+const usingLocalStripe = () => Boolean(useRuntimeConfig().stripe.apiHost)
 
 /**
  * Stripe accepts a Checkout Session lifetime of 30 minutes to 24 hours

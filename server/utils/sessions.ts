@@ -22,7 +22,7 @@ export function weeklyStartsUtc(opts: { startDate: string, startTime: string, we
   return starts
 }
 
-export function sessionView(s: TastingSession, extra: { flightName: string, flightVersion: number, hostName: string | null }, timeZone: string): SessionRow {
+function sessionView(s: TastingSession, extra: { flightName: string, flightVersion: number, hostName: string | null }, timeZone: string): SessionRow {
   const local = DateTime.fromJSDate(s.startsAt, { zone: timeZone })
   return {
     id: s.id,

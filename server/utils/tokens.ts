@@ -6,7 +6,7 @@ import type { CurrentUser } from './auth'
 
 type Purpose = 'invite' | 'reset'
 
-export const hashToken = (raw: string) => createHash('sha256').update(raw).digest('hex')
+const hashToken = (raw: string) => createHash('sha256').update(raw).digest('hex')
 
 /** Issues a one-time link token; only its hash is stored. Returns the raw token for the e-mail. */
 export async function issueToken(tx: Tx, opts: { userId: number, purpose: Purpose, ttlMs: number, createdById?: number }): Promise<string> {
@@ -25,7 +25,7 @@ export async function issueToken(tx: Tx, opts: { userId: number, purpose: Purpos
  * Spends a token inside the caller's transaction: unknown → 400, used or expired → 410, each with
  * a message that tells the person what to do next. Other open tokens of the same purpose die too.
  */
-export async function consumeToken(tx: Tx, raw: string, purpose: Purpose): Promise<number> {
+async function consumeToken(tx: Tx, raw: string, purpose: Purpose): Promise<number> {
   const [row] = await tx.select().from(tables.authTokens)
     .where(and(eq(tables.authTokens.tokenHash, hashToken(raw)), eq(tables.authTokens.purpose, purpose)))
     .for('update')

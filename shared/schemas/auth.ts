@@ -14,7 +14,6 @@ export const signUpSchema = z.object({
   password: passwordField,
   dateOfBirth: isoDateField.refine(s => s >= '1900-01-01' && s <= new Date().toISOString().slice(0, 10), { error: 'Enter your real date of birth.' }),
 })
-export type SignUpInput = z.input<typeof signUpSchema>
 
 export const signInSchema = z.object({
   email: emailField,

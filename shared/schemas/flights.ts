@@ -18,22 +18,19 @@ export const pourSchema = z.object({
 })
 export type PourInput = z.input<typeof pourSchema>
 
-export const poursField = z.array(pourSchema, { error: 'List the pours.' })
+const poursField = z.array(pourSchema, { error: 'List the pours.' })
   .min(POURS_MIN, { error: `A flight has ${POURS_MIN} to ${POURS_MAX} pours.` })
   .max(POURS_MAX, { error: `A flight has ${POURS_MIN} to ${POURS_MAX} pours.` })
 
-export const flightFieldsSchema = z.object({
+const flightFieldsSchema = z.object({
   name: z.string({ error: 'Name the flight.' }).trim().min(1, { error: 'Name the flight.' }).max(120, { error: 'Use at most 120 characters.' }),
   summary: z.string().trim().max(400, { error: 'Use at most 400 characters.' }).default(''),
 })
 
 export const flightSaveSchema = flightFieldsSchema.extend({ pours: poursField })
-export type FlightSaveInput = z.input<typeof flightSaveSchema>
 
 /** The builder's live preview: pours as they stand, possibly incomplete (1 pour is fine). */
 export const flightPreviewSchema = z.object({ pours: z.array(pourSchema).min(1, { error: 'Add a pour.' }).max(POURS_MAX, { error: `At most ${POURS_MAX} pours.` }) })
-
-export const flightStatusSchema = z.object({ status: z.enum(['draft', 'published', 'retired'], { error: 'Choose draft, published or retired.' }) })
 
 export const flightPatchSchema = flightFieldsSchema.partial().extend({ pours: poursField.optional() })
   .refine(v => Object.keys(v).length > 0, { error: 'Change at least one field.' })

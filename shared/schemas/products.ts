@@ -9,7 +9,7 @@ const num = (label: string, min: number, max: number, unit: string) =>
     .max(max, { error: `${cap(label)} must be between ${min} and ${max} ${unit}.` })
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1)
 
-export const productCodeField = z.string({ error: 'Enter a product code.' }).trim()
+const productCodeField = z.string({ error: 'Enter a product code.' }).trim()
   .min(1, { error: 'Enter a product code.' }).max(40, { error: 'Use at most 40 characters for the code.' })
   .regex(/^[\w.-]+$/, { error: 'Use letters, digits, dots, dashes or underscores in the code.' })
 
@@ -46,11 +46,10 @@ const productFields = {
 }
 
 /** A product's descriptive fields; a new product is active unless it says otherwise. */
-export const productFieldsSchema = z.object({ ...productFields, status: productFields.status.default('active') })
+const productFieldsSchema = z.object({ ...productFields, status: productFields.status.default('active') })
 
 /** A new product arrives with its first measurement. */
 export const productCreateSchema = productFieldsSchema.extend({ measurement: measurementSchema })
-export type ProductCreateInput = z.input<typeof productCreateSchema>
 
 /**
  * A change to some of the fields. Built without the status default: zod 4 applies defaults inside

@@ -1,7 +1,7 @@
 import { z } from './zod'
 import { isoDateField } from './common'
 
-export const localTimeField = z.string({ error: 'Enter a start time as HH:MM.' }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Enter a start time as HH:MM (24-hour).' })
+const localTimeField = z.string({ error: 'Enter a start time as HH:MM.' }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: 'Enter a start time as HH:MM (24-hour).' })
 
 /**
  * A session, or a weekly series of them, in the venue's local time. The server turns each local

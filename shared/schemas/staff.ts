@@ -2,7 +2,7 @@ import { z } from './zod'
 import { STAFF_ROLES } from '../roles'
 import { emailField, personNameField } from './common'
 
-export const staffRoleField = z.enum(STAFF_ROLES, { error: `Choose a staff role: ${STAFF_ROLES.join(', ')}.` })
+const staffRoleField = z.enum(STAFF_ROLES, { error: `Choose a staff role: ${STAFF_ROLES.join(', ')}.` })
 
 export const inviteSchema = z.object({ name: personNameField, email: emailField, role: staffRoleField })
 

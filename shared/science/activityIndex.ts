@@ -25,7 +25,7 @@ import { mixtureSigmaUnchecked } from './surfaceTension'
 export const INDEX_REFERENCE = { drive: 5.143917792295875e-4, abvPctVol: 13.94, tempC: 20 } as const
 
 /** Temperature at which the index is anchored, °C. */
-export const INDEX_ANCHOR_TEMP_C = 20
+const INDEX_ANCHOR_TEMP_C = 20
 
 /** The index and the quantities it is built from. */
 export interface FilmActivity {

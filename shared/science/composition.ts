@@ -41,10 +41,10 @@ const OIML_C: readonly (readonly number[])[] = [
 ]
 
 /** Temperature range of the OIML R 22 formula, °C. */
-export const OIML_TEMP_RANGE_C = { min: -20, max: 40 } as const
+const OIML_TEMP_RANGE_C = { min: -20, max: 40 } as const
 
 /** Reference temperature of ABV and of the OIML tables, °C. */
-export const ABV_REFERENCE_TEMP_C = 20
+const ABV_REFERENCE_TEMP_C = 20
 
 /**
  * Apparent specific volume of dissolved sugar, cm³/g. Partial molar volume at infinite dilution,
@@ -54,7 +54,7 @@ export const ABV_REFERENCE_TEMP_C = 20
  * adds 0.384 kg/m³, matching the ICUMSA sucrose density table within 0.3 kg/m³ up to 20 °Brix and
  * 2 kg/m³ at 40 °Brix (table values from memory).
  */
-export const SUGAR_APPARENT_SPECIFIC_VOLUME_CM3_G = 0.617
+const SUGAR_APPARENT_SPECIFIC_VOLUME_CM3_G = 0.617
 
 /** Bisection tolerance for ABV → mass fraction, in mass fraction. */
 const ABV_INVERSION_TOLERANCE = 1e-12

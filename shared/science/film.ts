@@ -31,7 +31,7 @@ export const FILM_MASS_LOSS_FRACTION = 0.05
  * used for ethanol and water, so evaporation is governed by the partial pressures alone (see
  * docs/science.md for what this leaves out: ethanol's lower diffusivity, humidity).
  */
-export const EVAPORATION_MASS_TRANSFER_COEFF_M_S = 5e-3
+const EVAPORATION_MASS_TRANSFER_COEFF_M_S = 5e-3
 
 /** Number of classical Runge–Kutta steps for the Rayleigh integration (error < 1e-9 in x1; see tests). */
 const RAYLEIGH_RK4_STEPS = 40

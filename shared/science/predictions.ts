@@ -23,14 +23,14 @@ export const DEFAULT_WALL_ANGLE_DEG = 70
  * (estimate, no source; the undercompressive-shock solutions of Dukler et al., Phys. Rev. Fluids 5,
  * 034002, 2020, show ridges of this order of the film thickness — from memory).
  */
-export const TEAR_THICKNESS_RATIO = 2
+const TEAR_THICKNESS_RATIO = 2
 
 /**
  * A climbing film shorter than this many capillary lengths stays hidden in the meniscus region and
  * shows no distinct clear band or tears (estimate: a ridge about ℓc wide cannot separate from a
  * meniscus closer than its own width; no source).
  */
-export const VISIBLE_BAND_MIN_CAPILLARY_LENGTHS = 1
+const VISIBLE_BAND_MIN_CAPILLARY_LENGTHS = 1
 
 /** Inputs to the scaling laws, each in the unit its name says. */
 export interface TearPhysicsInput {

@@ -22,7 +22,7 @@ export type StandardDrinkDefinition = keyof typeof STANDARD_DRINK_GRAMS
 export const ML_PER_US_FL_OZ = 29.5735295625
 
 /** Largest pour accepted, mL (a bottle and a half; catches unit mistakes such as L entered as mL). */
-export const POUR_VOLUME_RANGE_ML = { min: 0, max: 1500 } as const
+const POUR_VOLUME_RANGE_ML = { min: 0, max: 1500 } as const
 
 /**
  * Grams of ethanol in a pour: volume (mL) × ABV/100 × 0.78924 g/mL (ethanol at 20 °C, OIML R 22).

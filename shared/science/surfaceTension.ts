@@ -5,7 +5,7 @@ import { KELVIN_AT_0C } from './constants'
 import { assertInRange } from './ranges'
 
 /** IAPWS R1-76(2014) constants for the surface tension of ordinary water. */
-export const IAPWS_SURFACE_TENSION = { B_mN_m: 235.8, b: -0.625, mu: 1.256, Tc_K: 647.096 } as const
+const IAPWS_SURFACE_TENSION = { B_mN_m: 235.8, b: -0.625, mu: 1.256, Tc_K: 647.096 } as const
 
 /**
  * Surface tension of water, mN/m. IAPWS R1-76(2014): σ = B τ^μ (1 + b τ), τ = 1 − T/Tc.
@@ -23,7 +23,7 @@ function waterSigma(tempC: number): number {
 }
 
 /** Jasper, J. Phys. Chem. Ref. Data 1, 841 (1972): ethanol σ = 24.05 − 0.0832 t (mN/m, t in °C). */
-export const JASPER_ETHANOL = { a_mN_m: 24.05, b_mN_m_K: 0.0832 } as const
+const JASPER_ETHANOL = { a_mN_m: 24.05, b_mN_m_K: 0.0832 } as const
 
 /**
  * Surface tension of pure ethanol, mN/m, Jasper (1972) linear fit σ = 24.05 − 0.0832 t.
@@ -44,7 +44,7 @@ export function surfaceTensionEthanol_mN_m(tempC: number): number {
  *  - endpoints σ_w (IAPWS) and σ_e (Jasper), which the form reproduces exactly.
  * Largest residual: 1.1 mN/m (at 5 % mass); both secondary anchors within 0.6 mN/m.
  */
-export const CONNORS_WRIGHT_ETHANOL_WATER = { a: 0.9545, b: 0.94 } as const
+const CONNORS_WRIGHT_ETHANOL_WATER = { a: 0.9545, b: 0.94 } as const
 
 /**
  * Ethanol–water surface tensions at 20 °C used in the fit, [ethanol mass fraction, σ mN/m].

@@ -31,7 +31,7 @@ export const BINGHAM_JACKSON_40C_MEMORY: readonly (readonly [number, number])[] 
  * fraction, η_w = 1.005 and η_e = 1.200 mPa·s (the table's own end points). Least squares on the
  * nine interior Bingham & Jackson points; largest relative residual 0.39 %.
  */
-export const VISCOSITY_FIT_20C = {
+const VISCOSITY_FIT_20C = {
   etaWater_mPa_s: 1.005,
   etaEthanol_mPa_s: 1.2,
   G: [3.845645650507661, -1.3727228973052084, 0.9803698274726486, 1.0832763012189193, -1.1844994929537274],
@@ -45,7 +45,7 @@ export const VISCOSITY_FIT_20C = {
  * and 30 °C the model agrees with the recalled table within 2.5 %. E(0) = 587 K against 571 K for
  * water's own Vogel constant (247.8 × ln 10).
  */
-export const VISCOSITY_TEMPERATURE_TERM = {
+const VISCOSITY_TEMPERATURE_TERM = {
   vogelT_K: 140,
   E_K: [587.4621664202074, 2099.5206016716015, -3848.8045599023826, 1612.424056694286],
 } as const
@@ -82,7 +82,7 @@ export function viscosityHydroalcoholic_mPa_s(massFraction: number, tempC: numbe
  * memory). Largest relative residual 0.75 %. The initial slope S_1 = 2.77 is the Einstein-like
  * intrinsic viscosity per unit mass fraction.
  */
-export const SUGAR_RELATIVE_VISCOSITY_FIT = { S: [2.7663020637594564, 0.8373400124807032, 9.115725927482552] } as const
+const SUGAR_RELATIVE_VISCOSITY_FIT = { S: [2.7663020637594564, 0.8373400124807032, 9.115725927482552] } as const
 
 /**
  * Factor by which dissolved sugar multiplies the solvent's viscosity, dimensionless.

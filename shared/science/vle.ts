@@ -9,29 +9,29 @@ import { GAS_CONSTANT_CAL_MOL_K, KELVIN_AT_0C, STANDARD_ATMOSPHERE_PA } from './
 import { assertInRange } from './ranges'
 
 /** Antoine constants, log10(P/Pa) = A − B/(T/K + C). Poling, Prausnitz & O'Connell, 5th ed. */
-export const ANTOINE_ETHANOL = { A: 10.33675, B: 1648.22, C: -42.232, minT_K: 276.5, maxT_K: 369.5 } as const
+const ANTOINE_ETHANOL = { A: 10.33675, B: 1648.22, C: -42.232, minT_K: 276.5, maxT_K: 369.5 } as const
 /** Antoine constants for water, Poling, Prausnitz & O'Connell, 5th ed. */
-export const ANTOINE_WATER = { A: 10.11564, B: 1687.537, C: -42.98, minT_K: 273.2, maxT_K: 473.2 } as const
+const ANTOINE_WATER = { A: 10.11564, B: 1687.537, C: -42.98, minT_K: 273.2, maxT_K: 473.2 } as const
 
 /**
  * Lowest temperature at which the model evaluates the Antoine equations, K. Ethanol's published
  * range starts at 276.5 K; 273.15–276.5 K is a 3.35 K extrapolation (0 °C → 1.58 kPa, vs ~1.6 kPa
  * in handbook tables, from memory).
  */
-export const ANTOINE_MODEL_MIN_T_K = KELVIN_AT_0C
+const ANTOINE_MODEL_MIN_T_K = KELVIN_AT_0C
 
 /**
  * Upper end of the bubble-point search, K: just above water's normal boiling point, so the
  * water-rich end (x1 → 0) can be solved at 1 atm. Above 369.5 K the ethanol Antoine constants are
  * extrapolated by at most 4 K, where the ethanol term is small (x1 < ~0.03).
  */
-export const BUBBLE_POINT_MAX_T_K = 373.5
+const BUBBLE_POINT_MAX_T_K = 373.5
 
 /** NRTL parameters for ethanol (1) + water (2), DECHEMA set as distributed with ChemSep. cal/mol. */
-export const NRTL_ETHANOL_WATER = { A12_cal_mol: -57.9601, A21_cal_mol: 1241.7396, alpha12: 0.2937 } as const
+const NRTL_ETHANOL_WATER = { A12_cal_mol: -57.9601, A21_cal_mol: 1241.7396, alpha12: 0.2937 } as const
 
 /** Wilson parameters, ChemSep set: Λij = exp(aij + bij/T). */
-export const WILSON_ETHANOL_WATER = { a12: -1.17693, b12_K: -192.381, a21: 1.17693, b21_K: -480.801 } as const
+const WILSON_ETHANOL_WATER = { a12: -1.17693, b12_K: -192.381, a21: 1.17693, b21_K: -480.801 } as const
 
 export type ActivityModel = 'nrtl' | 'wilson'
 
