@@ -28,6 +28,14 @@ export const BOOKING_TRANSITIONS: Record<BookingEvent, { from: readonly BookingS
   expire: { from: ['held'], to: 'expired' },
 }
 
+/**
+ * What a booking's history records (booking_events): the diagram's events, plus the door's own
+ * decisions — turning a party away, and undoing a "did not come" or a "turned away" so that a
+ * late party can still be seated.
+ */
+export const BOOKING_HISTORY_EVENTS = ['pay', 'late_payment', 'arrive', 'no_show', 'turn_away', 'undo_door', 'cancel', 'refund', 'expire'] as const
+export type BookingHistoryEvent = (typeof BOOKING_HISTORY_EVENTS)[number]
+
 export const canTransition = (from: BookingState, event: BookingEvent): boolean => BOOKING_TRANSITIONS[event].from.includes(from)
 
 export const BOOKING_STATE_LABELS: Record<BookingState, string> = {

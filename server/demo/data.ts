@@ -24,6 +24,16 @@ export const DEMO_VENUE = {
     'You must be of legal drinking age; we check ID at the door.',
     'Our hosts may decline to serve anyone, following local law and licensed practice.',
   ].join('\n'),
+  // 555-01xx numbers are reserved for fiction (North American Numbering Plan); .test is reserved (RFC 2606).
+  phone: '+1 207 555 0143',
+  email: 'hello@saltmarsh.test',
+  website: 'https://saltmarsh.test',
+  openingHours: {
+    thu: [{ opens: '12:00', closes: '19:00' }],
+    fri: [{ opens: '12:00', closes: '21:00' }],
+    sat: [{ opens: '11:00', closes: '21:00' }],
+    sun: [{ opens: '11:00', closes: '17:00' }],
+  },
 }
 
 export const DEMO_USERS = [

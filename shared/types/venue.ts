@@ -1,3 +1,5 @@
+import type { OpeningHours } from '../venue'
+
 /** The venue's public settings, as GET /api/venue sends them (server/api/venue/index.get.ts). */
 export interface PublicVenue {
   id: number
@@ -14,5 +16,10 @@ export interface PublicVenue {
   standardDrinkGrams: number
   guestEthanolLimitGrams: number
   cancellationCutoffHours: number
+  /** The venue's own caution lines, after the fixed block (shared/cautions.ts). */
   cautions: string
+  phone: string
+  email: string
+  website: string
+  openingHours: OpeningHours | null
 }

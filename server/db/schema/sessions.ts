@@ -1,4 +1,4 @@
-import { mysqlTable, int, varchar, mysqlEnum, char, index } from 'drizzle-orm/mysql-core'
+import { mysqlTable, int, varchar, mysqlEnum, char, index, uniqueIndex } from 'drizzle-orm/mysql-core'
 import { timestamps, utcDatetime } from './common'
 import { venues } from './venues'
 import { flights } from './flights'
@@ -23,6 +23,12 @@ export const tastingSessions = mysqlTable('tasting_sessions', {
   /** Sessions created together as a recurring series share this id. */
   seriesId: varchar('series_id', { length: 36 }),
   ...timestamps,
-}, t => [index('sessions_venue_start_idx').on(t.venueId, t.startsAt), index('sessions_flight_idx').on(t.flightId), index('sessions_series_idx').on(t.seriesId)])
+}, t => [
+  index('sessions_venue_start_idx').on(t.venueId, t.startsAt),
+  // One flight cannot be scheduled twice at the same instant (a double click on Schedule).
+  uniqueIndex('sessions_flight_start_uq').on(t.flightId, t.startsAt),
+  index('sessions_flight_idx').on(t.flightId),
+  index('sessions_series_idx').on(t.seriesId),
+])
 
 export type TastingSession = typeof tastingSessions.$inferSelect

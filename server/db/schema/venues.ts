@@ -1,4 +1,5 @@
-import { mysqlTable, int, varchar, char, text, mysqlEnum, double } from 'drizzle-orm/mysql-core'
+import { mysqlTable, int, varchar, char, text, mysqlEnum, double, json } from 'drizzle-orm/mysql-core'
+import type { OpeningHours } from '../../../shared/venue'
 import { timestamps } from './common'
 
 /** One venue today; every venue-scoped table will carry venue_id. */
@@ -19,7 +20,17 @@ export const venues = mysqlTable('venues', {
   /** Per-guest ceiling for one flight, grams of ethanol. */
   guestEthanolLimitGrams: double('guest_ethanol_limit_grams').notNull(),
   cancellationCutoffHours: int('cancellation_cutoff_hours').notNull().default(24),
+  /**
+   * The venue's own caution lines, shown after the fixed block the product keeps (legal age, no
+   * driving, pregnancy, medicines, local law: shared/cautions.ts), which a manager cannot remove.
+   */
   cautions: text('cautions').notNull(),
+  /** How guests reach the venue: shown in the footer, the booking e-mails and wherever a guest is told to contact it. */
+  phone: varchar('phone', { length: 40 }).notNull().default(''),
+  email: varchar('email', { length: 254 }).notNull().default(''),
+  website: varchar('website', { length: 300 }).notNull().default(''),
+  /** Opening hours per weekday in local time (shared/venue.ts); null until the manager sets them. */
+  openingHours: json('opening_hours').$type<OpeningHours>(),
   ...timestamps,
 })
 
