@@ -7,6 +7,8 @@ export interface PublicVenue {
   address: string
   /** IANA zone: every instant is UTC on the wire and shown in this zone. */
   timeZone: string
+  /** BCP 47 locale of its dates, times and numbers. */
+  locale: string
   /** ISO 4217 code; amounts are integer minor units of it. */
   currency: string
   legalAge: number

@@ -10,6 +10,7 @@ CREATE TABLE `booking_events` (
 	CONSTRAINT `booking_events_id` PRIMARY KEY(`id`)
 );
 --> statement-breakpoint
+ALTER TABLE `venues` ADD `locale` varchar(35) DEFAULT 'en-US' NOT NULL;--> statement-breakpoint
 ALTER TABLE `venues` ADD `phone` varchar(40) DEFAULT '' NOT NULL;--> statement-breakpoint
 ALTER TABLE `venues` ADD `email` varchar(254) DEFAULT '' NOT NULL;--> statement-breakpoint
 ALTER TABLE `venues` ADD `website` varchar(300) DEFAULT '' NOT NULL;--> statement-breakpoint

@@ -9,6 +9,8 @@ export const venues = mysqlTable('venues', {
   address: varchar('address', { length: 400 }).notNull(),
   /** IANA zone, e.g. Europe/Lisbon: every instant is stored in UTC and shown in this zone. */
   timeZone: varchar('time_zone', { length: 64 }).notNull(),
+  /** BCP 47 locale the venue's dates, times and numbers are written in (en-US: "Oct 3, 2:00 PM"; en-GB: "3 Oct, 14:00"). */
+  locale: varchar('locale', { length: 35 }).notNull().default('en-US'),
   /** ISO 4217 code; amounts elsewhere are integer minor units of it. */
   currency: char('currency', { length: 3 }).notNull(),
   legalAge: int('legal_age').notNull(),

@@ -1,0 +1,70 @@
+/**
+ * Dates and times, formatted in one place for staff and guest pages, e-mails and cards alike: in
+ * the venue's IANA zone and its locale (en-US "Sat, Oct 3, 2:00 PM"; en-GB "Sat 3 Oct, 14:00"),
+ * with the year only when it is not the current year in that zone. Instants are ISO strings or
+ * Dates in UTC; calendar days are YYYY-MM-DD and are never shifted by a zone.
+ */
+
+/** Where and how a venue writes its times. */
+export interface VenueClock { timeZone: string, locale: string }
+
+const year = (d: Date, timeZone: string) => new Intl.DateTimeFormat('en', { timeZone, year: 'numeric' }).format(d)
+const toDate = (instant: string | Date) => (instant instanceof Date ? instant : new Date(instant))
+
+/** Whether the instant falls in another calendar year than `now`, in the venue's zone. */
+function otherYear(d: Date, clock: VenueClock, now: Date): boolean {
+  return year(d, clock.timeZone) !== year(now, clock.timeZone)
+}
+
+/** "Sat, Oct 3" (or "Sat, Oct 3, 2027" in another year), in the venue's zone. */
+export function formatDay(instant: string | Date, clock: VenueClock, now = new Date()): string {
+  const d = toDate(instant)
+  return new Intl.DateTimeFormat(clock.locale, { timeZone: clock.timeZone, weekday: 'short', month: 'short', day: 'numeric', ...(otherYear(d, clock, now) ? { year: 'numeric' } : {}) }).format(d)
+}
+
+/** "Saturday, October 3, 2026": always with the year (confirmations, cards). */
+export function formatLongDay(instant: string | Date, clock: VenueClock): string {
+  return new Intl.DateTimeFormat(clock.locale, { timeZone: clock.timeZone, dateStyle: 'full' }).format(toDate(instant))
+}
+
+/** "2:00 PM" or "14:00", as the venue's locale writes it. */
+export function formatTime(instant: string | Date, clock: VenueClock): string {
+  return new Intl.DateTimeFormat(clock.locale, { timeZone: clock.timeZone, hour: 'numeric', minute: '2-digit' }).format(toDate(instant))
+}
+
+/** "Sat, Oct 3, 2:00 PM" (the year added in another year). */
+export function formatDayTime(instant: string | Date, clock: VenueClock, now = new Date()): string {
+  return `${formatDay(instant, clock, now)}, ${formatTime(instant, clock)}`
+}
+
+/** The zone's short name at that instant: "EDT", "GMT+1". */
+export function formatZoneName(instant: string | Date, clock: VenueClock): string {
+  return new Intl.DateTimeFormat(clock.locale, { timeZone: clock.timeZone, timeZoneName: 'short' }).formatToParts(toDate(instant)).find(p => p.type === 'timeZoneName')?.value ?? clock.timeZone
+}
+
+/** "Sat, Oct 3, 2:00 PM EDT": an instant a visitor from elsewhere cannot misread. */
+export function formatWhen(instant: string | Date, clock: VenueClock, now = new Date()): string {
+  return `${formatDayTime(instant, clock, now)} ${formatZoneName(instant, clock)}`
+}
+
+/** A calendar day YYYY-MM-DD as "Oct 3" (with the year in another year); no zone can shift it. */
+export function formatCalendarDay(day: string, clock: VenueClock, now = new Date()): string {
+  const d = new Date(`${day}T12:00:00Z`)
+  const other = day.slice(0, 4) !== year(now, clock.timeZone)
+  return new Intl.DateTimeFormat(clock.locale, { timeZone: 'UTC', month: 'short', day: 'numeric', ...(other ? { year: 'numeric' } : {}) }).format(d)
+}
+
+/** "2 h 15 min", "45 min". */
+export function formatDuration(minutes: number): string {
+  return minutes >= 60 ? `${Math.floor(minutes / 60)} h${minutes % 60 ? ` ${minutes % 60} min` : ''}` : `${minutes} min`
+}
+
+/** "in 5 hours", "in 3 days", "12 minutes ago": how far an instant is from now, in words. */
+export function formatFromNow(instant: string | Date, clock: VenueClock, now = new Date()): string {
+  const ms = toDate(instant).getTime() - now.getTime()
+  const abs = Math.abs(ms)
+  const [value, unit]: [number, Intl.RelativeTimeFormatUnit] = abs < 3_600_000
+    ? [Math.round(ms / 60_000), 'minute']
+    : abs < 48 * 3_600_000 ? [Math.round(ms / 3_600_000), 'hour'] : [Math.round(ms / 86_400_000), 'day']
+  return new Intl.RelativeTimeFormat(clock.locale, { numeric: 'always' }).format(value, unit)
+}
