@@ -60,7 +60,7 @@ export default defineNuxtConfig({
     // The public list of flights is the same for everyone and read on every visit to /flights; it is
     // kept for at most 5 s (no stale-while-revalidate), so seats left there lag a booking by 5 s at
     // most. A flight's own sessions and the booking form read seats live, and booking is decided in
-    // the database (server/utils/bookings.ts), never from this list.
+    // the database (server/utils/bookings/), never from this list.
     '/api/flights/published': { cache: { maxAge: 5, swr: false } },
     // The card PDFs open in the browser's own viewer, which a default-src 'none' would blank.
     '/cards/flights/*/card.pdf': { headers: { 'content-security-policy': 'frame-ancestors \'self\'' } },

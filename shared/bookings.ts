@@ -13,9 +13,6 @@
 export const BOOKING_STATES = ['held', 'confirmed', 'checked_in', 'no_show', 'cancelled', 'refunded', 'expired'] as const
 export type BookingState = (typeof BOOKING_STATES)[number]
 
-/** States that take seats: seats left = seats − (held + confirmed + checked_in). */
-export const SEAT_TAKING_STATES = ['held', 'confirmed', 'checked_in'] as const satisfies readonly BookingState[]
-
 export type BookingEvent = 'pay' | 'late_payment' | 'arrive' | 'no_show' | 'cancel' | 'refund' | 'expire'
 
 export const BOOKING_TRANSITIONS: Record<BookingEvent, { from: readonly BookingState[], to: BookingState }> = {

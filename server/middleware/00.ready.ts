@@ -4,6 +4,6 @@ export default defineEventHandler(async () => {
     await whenReady()
   }
   catch {
-    throw createError({ statusCode: 503, statusMessage: 'Service unavailable', message: 'The database is not answering. Please try again in a moment.' })
+    throw createError({ status: 503, statusText: 'Service unavailable', message: 'The database is not answering. Please try again in a moment.' })
   }
 })

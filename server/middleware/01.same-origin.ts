@@ -19,6 +19,6 @@ export default defineEventHandler((event) => {
   const host = getRequestHeader(event, 'x-forwarded-host') ?? getRequestHeader(event, 'host')
   const crossSite = site === 'cross-site' || (origin !== undefined && hostOf(origin) !== host)
   if (crossSite) {
-    throw createError({ statusCode: 403, statusMessage: 'Cross-site request', message: 'This request came from another site and was refused.' })
+    throw createError({ status: 403, statusText: 'Cross-site request', message: 'This request came from another site and was refused.' })
   }
 })

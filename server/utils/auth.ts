@@ -11,11 +11,11 @@ export interface CurrentUser { id: number, name: string, email: string, role: Ro
 export async function requireUser(event: H3Event): Promise<CurrentUser> {
   const session = await getUserSession(event)
   const id = session.user?.id
-  if (!id) throw createError({ statusCode: 401, statusMessage: 'Sign in first', message: 'Sign in to continue.' })
+  if (!id) throw createError({ status: 401, statusText: 'Sign in first', message: 'Sign in to continue.' })
   const [row] = await useDb().select().from(tables.users).where(eq(tables.users.id, id)).limit(1)
   if (!row || row.disabled || !row.passwordHash) {
     await clearUserSession(event)
-    throw createError({ statusCode: 401, statusMessage: 'Signed out', message: 'Your session has ended. Sign in again.' })
+    throw createError({ status: 401, statusText: 'Signed out', message: 'Your session has ended. Sign in again.' })
   }
   const user: CurrentUser = { id: row.id, name: row.name, email: row.email, role: row.role }
   if (session.user?.role !== user.role || session.user?.name !== user.name) await setUserSession(event, { user })
@@ -26,7 +26,7 @@ export async function requireUser(event: H3Event): Promise<CurrentUser> {
 export async function requireRole(event: H3Event, ...roles: Role[]): Promise<CurrentUser> {
   const user = await requireUser(event)
   if (!roles.includes(user.role)) {
-    throw createError({ statusCode: 403, statusMessage: 'Not allowed', message: 'Your role does not allow this.' })
+    throw createError({ status: 403, statusText: 'Not allowed', message: 'Your role does not allow this.' })
   }
   return user
 }

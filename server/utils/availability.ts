@@ -3,20 +3,12 @@ import { DateTime } from 'luxon'
 import type { TastingSession } from '../db/schema/sessions'
 import type { Venue } from '../db/schema/venues'
 import type { PublicSession } from '../../shared/types/sessions'
+import type { SeatCount } from '../../shared/seats'
 
-/**
- * Seats taken in a session, as a correlated subquery: held (while the hold lasts), confirmed and
- * checked in. Reads use it without locks; the booking transaction counts again under the session's
- * row lock before it writes.
- */
-export function seatsTakenSql(now: Date) {
-  const b = tables.bookings
-  return sql<number>`(select coalesce(sum(${b.partySize}), 0) from ${b} where ${b.sessionId} = ${tables.tastingSessions.id} and (${b.state} in ('confirmed', 'checked_in') or (${b.state} = 'held' and ${b.holdExpiresAt} > ${now})))`.mapWith(Number)
-}
-
-export function publicSessionView(s: TastingSession, flightName: string, taken: number, timeZone: string, now = new Date()): PublicSession {
+/** A session as guests see it; seats left come from the shared rule (shared/seats.ts). */
+export function publicSessionView(s: TastingSession, flightName: string, count: SeatCount, timeZone: string, now = new Date()): PublicSession {
   const closesAt = new Date(s.startsAt.getTime() - s.bookingCutoffMinutes * 60_000)
-  const seatsLeft = Math.max(0, s.seats - taken)
+  const { seatsLeft } = count
   const open = s.status === 'open' && now < closesAt
   return {
     id: s.id,
@@ -43,8 +35,8 @@ export function publicSessionView(s: TastingSession, flightName: string, taken: 
 }
 
 /**
- * Open sessions still taking bookings (future, before their cut-off), with seats left, in one
- * query. `flightIds` narrows to some flights; full sessions are listed too (marked not bookable).
+ * Open sessions still taking bookings (future, before their cut-off), with seats left, in two
+ * queries (the sessions, then their seats grouped). `flightIds` narrows to some flights; full sessions are listed too (marked not bookable).
  */
 export async function loadOpenSessions(venue: Venue, opts: { flightIds?: number[], limit?: number } = {}): Promise<PublicSession[]> {
   if (opts.flightIds && !opts.flightIds.length) return []
@@ -57,23 +49,27 @@ export async function loadOpenSessions(venue: Venue, opts: { flightIds?: number[
     sql`${s.startsAt} > date_add(${now}, interval ${s.bookingCutoffMinutes} minute)`,
   ]
   if (opts.flightIds) where.push(inArray(s.flightId, opts.flightIds))
-  const rows = await useDb().select({ s, flightName: tables.flights.name, taken: seatsTakenSql(now) })
+  const db = useDb()
+  const rows = await db.select({ s, flightName: tables.flights.name })
     .from(s)
     .innerJoin(tables.flights, eq(tables.flights.id, s.flightId))
     .where(and(...where))
     .orderBy(asc(s.startsAt))
     .limit(opts.limit ?? 500)
-  return rows.map(r => publicSessionView(r.s, r.flightName, r.taken, venue.timeZone, now))
+  const counts = await loadSeatCounts(db, rows.map(r => r.s), now)
+  return rows.map(r => publicSessionView(r.s, r.flightName, counts.get(r.s.id)!, venue.timeZone, now))
 }
 
 /** One session as a guest sees it before booking (any status, so the page can say why it is closed), or 404. */
 export async function loadPublicSession(venue: Venue, id: number): Promise<PublicSession> {
   const now = new Date()
   const s = tables.tastingSessions
-  const [row] = await useDb().select({ s, flightName: tables.flights.name, taken: seatsTakenSql(now) })
+  const db = useDb()
+  const [row] = await db.select({ s, flightName: tables.flights.name })
     .from(s)
     .innerJoin(tables.flights, eq(tables.flights.id, s.flightId))
     .where(and(eq(s.id, id), eq(s.venueId, venue.id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such session.' })
-  return publicSessionView(row.s, row.flightName, row.taken, venue.timeZone, now)
+  if (!row) notFound('No such session.')
+  const counts = await loadSeatCounts(db, [row.s], now)
+  return publicSessionView(row.s, row.flightName, counts.get(row.s.id)!, venue.timeZone, now)
 }

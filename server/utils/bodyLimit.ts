@@ -17,8 +17,8 @@ export function bodyLimitFor(path: string): number {
 
 export function bodyTooLarge(event: H3Event): never {
   if (event.path.startsWith('/api/images')) {
-    throw createError({ statusCode: 413, statusMessage: 'Too large', message: `Images may be at most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.`, data: { fields: { file: `At most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.` } } })
+    tooLarge(`Images may be at most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.`, { file: `At most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.` })
   }
   const kb = Math.round(bodyLimitFor(event.path) / 1024)
-  throw createError({ statusCode: 413, statusMessage: 'Request too large', message: `The request is too large: this form sends at most ${kb >= 1024 ? `${kb / 1024} MB` : `${kb} KB`}.` })
+  tooLarge(`The request is too large: this form sends at most ${kb >= 1024 ? `${kb / 1024} MB` : `${kb} KB`}.`)
 }

@@ -3,11 +3,10 @@ import { DateTime } from 'luxon'
 import type { Venue } from '../db/schema/venues'
 import type { z } from 'zod'
 import type { bookingReportQuerySchema } from '../../shared/schemas/bookings'
+import { addSeatCounts, countSeats, seatFactOf, type SeatCount } from '../../shared/seats'
+import type { BookingReport } from '../../shared/types/reports'
 
 type ReportQuery = z.output<typeof bookingReportQuerySchema>
-
-/** Seats that count towards the fill rate: live holds and confirmed seats, plus no-shows (they paid for theirs). */
-const FILL_STATES = new Set(['held', 'confirmed', 'checked_in', 'no_show'])
 
 /** The venue's calendar days turned into a UTC range; by default from a week ago to four weeks ahead. */
 export function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
@@ -18,10 +17,13 @@ export function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
 }
 
 /**
- * Sessions in the range with their bookings (two queries), each session's fill rate and takings,
- * and the totals. Takings are what was paid less what was refunded, in minor units.
+ * Sessions in the range with their bookings (two queries), each session's seats, fill rate and
+ * takings, and the totals. Seats taken and left are the shared rule (shared/seats.ts), as every
+ * other screen shows them; the fill rate is of seats sold, which also counts the parties that did
+ * not come or were turned away (they paid for their seats). Takings are what was paid less what
+ * was refunded, in minor units.
  */
-export async function loadBookingReport(venue: Venue, q: ReportQuery) {
+export async function loadBookingReport(venue: Venue, q: ReportQuery): Promise<BookingReport> {
   const range = reportRange(venue, q)
   const s = tables.tastingSessions
   const where: SQL[] = [eq(s.venueId, venue.id), gte(s.startsAt, range.fromUtc), lt(s.startsAt, range.toUtc)]
@@ -29,14 +31,19 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery) {
   const sessions = await loadSessionViews(and(...where), venue.timeZone)
   const b = tables.bookings
   const rows = sessions.length
-    ? await useDb().select({ b, guestName: tables.users.name, guestEmail: tables.users.email }).from(b)
+    ? await useDb().select({ b, guestName: tables.users.name, guestEmail: tables.users.email, checkIn: { outcome: tables.checkIns.outcome, seated: tables.checkIns.seated } }).from(b)
         .innerJoin(tables.users, eq(tables.users.id, b.userId))
+        .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, b.id))
         .where(inArray(b.sessionId, sessions.map(x => x.id)))
         .orderBy(asc(b.sessionId), asc(b.createdAt))
     : []
-  const now = Date.now()
+  const now = new Date()
+  const counts = new Map<number, SeatCount>()
   const out = sessions.map((session) => {
-    const list = rows.filter(r => r.b.sessionId === session.id).map(({ b: row, guestName, guestEmail }) => ({
+    const mine = rows.filter(r => r.b.sessionId === session.id)
+    const seats = countSeats(session.seats, mine.map(r => seatFactOf(r.b, r.checkIn, now)))
+    counts.set(session.id, seats)
+    const list = mine.map(({ b: row, guestName, guestEmail }) => ({
       id: row.id,
       reference: row.reference,
       state: row.state,
@@ -51,26 +58,26 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery) {
       amountPaidMinor: row.amountPaidMinor,
       amountRefundedMinor: row.amountRefundedMinor,
       currency: row.currency,
-      holdLive: row.state === 'held' && row.holdExpiresAt.getTime() > now,
+      holdLive: row.state === 'held' && row.holdExpiresAt.getTime() > now.getTime(),
       createdAt: row.createdAt.toISOString(),
       refundedAt: row.refundedAt?.toISOString() ?? null,
     }))
-    const seatsTaken = list.filter(x => FILL_STATES.has(x.state) && (x.state !== 'held' || x.holdLive)).reduce((n, x) => n + x.partySize, 0)
     const paidMinor = list.reduce((n, x) => n + x.amountPaidMinor, 0)
     const refundedMinor = list.reduce((n, x) => n + x.amountRefundedMinor, 0)
     return {
       session,
       bookings: list,
-      seatsTaken,
-      fillRate: session.seats ? seatsTaken / session.seats : 0,
+      seatsTaken: seats.seatsTaken,
+      seatsLeft: seats.seatsLeft,
+      seatsSold: seats.seatsSold,
+      seatBreakdown: seats.breakdown,
+      fillRate: session.seats ? seats.seatsSold / session.seats : 0,
       paidMinor,
       refundedMinor,
       revenueMinor: paidMinor - refundedMinor,
     }
   })
-  const live = out.filter(x => x.session.status !== 'cancelled')
-  const seats = live.reduce((n, x) => n + x.session.seats, 0)
-  const seatsTaken = live.reduce((n, x) => n + x.seatsTaken, 0)
+  const live = addSeatCounts(out.filter(x => x.session.status !== 'cancelled').map(x => counts.get(x.session.id)!))
   return {
     from: range.from,
     to: range.to,
@@ -78,9 +85,11 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery) {
     sessions: out,
     totals: {
       sessions: out.length,
-      seats,
-      seatsTaken,
-      fillRate: seats ? seatsTaken / seats : 0,
+      seats: live.seats,
+      seatsTaken: live.seatsTaken,
+      seatsLeft: live.seatsLeft,
+      seatsSold: live.seatsSold,
+      fillRate: live.seats ? live.seatsSold / live.seats : 0,
       bookings: out.reduce((n, x) => n + x.bookings.length, 0),
       paidMinor: out.reduce((n, x) => n + x.paidMinor, 0),
       refundedMinor: out.reduce((n, x) => n + x.refundedMinor, 0),

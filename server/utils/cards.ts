@@ -79,6 +79,6 @@ export function startCardJob(ownerId: number, cards: FlightCard[], paper: CardPa
 
 export function findCardJob(id: string, user: CurrentUser): CardJob {
   const job = jobs.get(id)
-  if (!job || (job.ownerId !== user.id && user.role !== 'manager')) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such print job (finished ones are kept for 15 minutes).' })
+  if (!job || (job.ownerId !== user.id && user.role !== 'manager')) notFound('No such print job (finished ones are kept for 15 minutes).')
   return job
 }

@@ -35,7 +35,7 @@ export async function loadProducts(venueId: number, opts: { ids?: number[], hist
 
 export async function loadProduct(venueId: number, id: number, history = false) {
   const [p] = await loadProducts(venueId, { ids: [id], history })
-  if (!p) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such product.' })
+  if (!p) notFound('No such product.')
   return p
 }
 
@@ -73,6 +73,7 @@ export function productView(p: ProductWithMeasurement & { history?: ProductMeasu
   }
 }
 
-export function duplicateCodeError(code: string) {
-  return createError({ statusCode: 409, statusMessage: 'Duplicate code', message: `Another product already uses the code ${code}.`, data: { fields: { code: 'Another product already uses this code.' } } })
+/** 409 on the code field: another product of the venue has it. */
+export function refuseDuplicateCode(code: string): never {
+  conflict(`Another product already uses the code ${code}.`, { fields: { code: 'Another product already uses this code.' } })
 }

@@ -32,14 +32,14 @@ export async function resolveSubject(venueId: number, kind: ContentKind, subject
   const db = useDb()
   if (kind === 'article') {
     const def = (await articleDefaults()).get(subject)
-    if (!def) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such article.' })
+    if (!def) notFound('No such article.')
     return { subjectId: null, slug: subject, label: def.title, default: def }
   }
   const id = Number(subject)
-  if (!Number.isInteger(id) || id <= 0) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The id must be a whole number.', data: { fields: { subject: 'The id must be a whole number.' } } })
+  if (!Number.isInteger(id) || id <= 0) invalidFields({ subject: 'The id must be a whole number.' })
   const table = kind === 'product_note' ? tables.products : tables.flights
   const [row] = await db.select({ id: table.id, name: table.name }).from(table).where(and(eq(table.id, id), eq(table.venueId, venueId)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'Not found', message: kind === 'product_note' ? 'No such product.' : 'No such flight.' })
+  if (!row) notFound(kind === 'product_note' ? 'No such product.' : 'No such flight.')
   return { subjectId: id, slug: null, label: row.name }
 }
 

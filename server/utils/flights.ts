@@ -1,4 +1,4 @@
-import { and, asc, count, eq, inArray } from 'drizzle-orm'
+import { and, asc, count, eq, inArray, ne } from 'drizzle-orm'
 import type { Venue } from '../db/schema/venues'
 import type { Flight, Glass } from '../db/schema/flights'
 import type { PourInput } from '../../shared/schemas/flights'
@@ -29,7 +29,7 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]): FlightP
     if (!ctx.products.has(s.productId)) fields[`pours.${i}.productId`] = 'No such product.'
     if (!ctx.glasses.has(s.glassId)) fields[`pours.${i}.glassId`] = 'No such glass.'
   })
-  if (Object.keys(fields).length) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: Object.values(fields).join(' '), data: { fields } })
+  if (Object.keys(fields).length) invalidFields(fields)
 
   const pours = specs.map((s, i) => {
     const p = ctx.products.get(s.productId)!
@@ -81,7 +81,7 @@ export const glassView = (g: Glass): GlassView => ({ id: g.id, name: g.name, bow
 /** A flight in the venue, or 404. Guests and anonymous visitors see published flights only. */
 export async function loadFlight(venue: Venue, id: number, opts: { publishedOnly?: boolean } = {}): Promise<Flight> {
   const [flight] = await useDb().select().from(tables.flights).where(and(eq(tables.flights.id, id), eq(tables.flights.venueId, venue.id)))
-  if (!flight || (opts.publishedOnly && flight.status !== 'published')) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such flight.' })
+  if (!flight || (opts.publishedOnly && flight.status !== 'published')) notFound('No such flight.')
   return flight
 }
 
@@ -131,11 +131,46 @@ export async function writePours(tx: Tx, flightId: number, pours: PourInput[]) {
 /** Locks the flight row and refuses pour changes once it is published and scheduled. */
 export async function lockFlightForEdit(tx: Tx, venueId: number, id: number) {
   const [flight] = await tx.select().from(tables.flights).where(and(eq(tables.flights.id, id), eq(tables.flights.venueId, venueId))).for('update')
-  if (!flight) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such flight.' })
+  if (!flight) notFound('No such flight.')
   return flight
 }
 
 export async function flightSessionCount(tx: Tx, flightId: number): Promise<number> {
   const [{ n } = { n: 0 }] = await tx.select({ n: count() }).from(tables.tastingSessions).where(eq(tables.tastingSessions.flightId, flightId))
   return n
+}
+
+/**
+ * Moves a flight to another status, with its row locked, and returns its view. 409 when the move
+ * does not fit where the flight is:
+ * - published: only a draft, and only when all its products are active. Another published version
+ *   of the same flight is retired: its scheduled sessions keep it, new sessions take this one.
+ * - draft (unpublish): only a published flight, and only while it has no sessions.
+ * - retired: any flight not retired yet; no new sessions, those already scheduled keep it.
+ */
+export async function moveFlight(venue: Venue, id: number, to: 'published' | 'draft' | 'retired') {
+  if (to === 'published') {
+    const view = await flightView(venue, await loadFlight(venue, id))
+    const retiredProducts = view.pours.filter(p => p.product.status !== 'active').map(p => p.product.name)
+    if (retiredProducts.length) conflict(`Replace the retired products first: ${retiredProducts.join(', ')}.`)
+  }
+  await useDb().transaction(async (tx) => {
+    const flight = await lockFlightForEdit(tx, venue.id, id)
+    if (to === 'published') {
+      if (flight.status !== 'draft') conflict(`Only a draft can be published; this flight is ${flight.status}.`)
+      await tx.update(tables.flights).set({ status: 'retired' })
+        .where(and(eq(tables.flights.lineageId, flight.lineageId ?? flight.id), eq(tables.flights.status, 'published'), ne(tables.flights.id, id)))
+      await tx.update(tables.flights).set({ status: 'published', publishedAt: new Date() }).where(eq(tables.flights.id, id))
+    }
+    else if (to === 'draft') {
+      if (flight.status !== 'published') conflict('Only a published flight can go back to draft.')
+      if (await flightSessionCount(tx, id) > 0) conflict('This flight has sessions. Retire it instead, or make a new version.')
+      await tx.update(tables.flights).set({ status: 'draft', publishedAt: null }).where(eq(tables.flights.id, id))
+    }
+    else {
+      if (flight.status === 'retired') conflict('This flight is already retired.')
+      await tx.update(tables.flights).set({ status: 'retired' }).where(eq(tables.flights.id, id))
+    }
+  })
+  return flightView(venue, await loadFlight(venue, id))
 }

@@ -3,8 +3,9 @@ import { DateTime } from 'luxon'
 import type { H3Event } from 'h3'
 import type { TastingSession } from '../db/schema/sessions'
 import type { Venue } from '../db/schema/venues'
-import { BOOKING_STATE_LABELS, SEAT_TAKING_STATES } from '../../shared/bookings'
+import { BOOKING_STATE_LABELS } from '../../shared/bookings'
 import type { HostDay } from '../../shared/types/host'
+import { countSeats, seatFactOf } from '../../shared/seats'
 
 /** States a host sees on the day's list: who is coming, who came, who did not. */
 const ON_THE_LIST = ['held', 'confirmed', 'checked_in', 'no_show'] as const
@@ -17,17 +18,17 @@ export async function requireSessionHost(event: H3Event, sessionId: number) {
   const user = await requireRole(event, 'host', 'manager')
   const venue = await getVenue()
   const [session] = await useDb().select().from(tables.tastingSessions).where(and(eq(tables.tastingSessions.id, sessionId), eq(tables.tastingSessions.venueId, venue.id)))
-  if (!session) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such session.' })
+  if (!session) notFound('No such session.')
   if (user.role !== 'manager' && session.hostId !== user.id) {
-    throw createError({ statusCode: 403, statusMessage: 'Not your session', message: 'Only the session\'s host or a manager can check guests in.' })
+    throw createError({ status: 403, statusText: 'Not your session', message: 'Only the session\'s host or a manager can check guests in.' })
   }
-  if (session.status === 'cancelled') throw createError({ statusCode: 409, statusMessage: 'Cancelled', message: 'This session is cancelled.' })
+  if (session.status === 'cancelled') conflict('This session is cancelled.')
   return { user, venue, session }
 }
 
 export async function bookingSessionId(bookingId: number): Promise<number> {
   const [b] = await useDb().select({ sessionId: tables.bookings.sessionId }).from(tables.bookings).where(eq(tables.bookings.id, bookingId))
-  if (!b) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such booking.' })
+  if (!b) notFound('No such booking.')
   return b.sessionId
 }
 
@@ -53,10 +54,8 @@ export async function hostDay(venue: Venue, user: CurrentUser, date: string, now
     timeZone: venue.timeZone,
     sessions: sessions.map(({ s, flightName, hostName }) => {
       const mine = parties.filter(p => p.b.sessionId === s.id).filter(p => p.b.state !== 'held' || p.b.holdExpiresAt > now)
-      const taken = mine.filter(p => (SEAT_TAKING_STATES as readonly string[]).includes(p.b.state)).reduce((n, p) => n + p.b.partySize, 0)
-      const arrived = mine.reduce((n, p) => n + (p.c?.outcome === 'arrived' ? p.c.seated : 0), 0)
-      const expected = mine.filter(p => p.b.state === 'confirmed').reduce((n, p) => n + p.b.partySize, 0)
-      const noShows = mine.filter(p => p.b.state === 'no_show').reduce((n, p) => n + p.b.partySize, 0)
+      const seats = countSeats(s.seats, mine.map(p => seatFactOf(p.b, p.c, now)))
+      const { breakdown } = seats
       return {
         id: s.id,
         flightId: s.flightId,
@@ -68,7 +67,16 @@ export async function hostDay(venue: Venue, user: CurrentUser, date: string, now
         started: now >= s.startsAt,
         status: s.status,
         canAct: user.role === 'manager' || s.hostId === user.id,
-        counts: { seats: s.seats, taken, seatsLeft: Math.max(0, s.seats - taken), expected, arrived, noShows },
+        // Seats by the shared rule (shared/seats.ts); expected, arrived and noShows are the panel's own words for parts of it.
+        counts: {
+          seats: s.seats,
+          taken: seats.seatsTaken,
+          seatsLeft: seats.seatsLeft,
+          expected: breakdown.confirmed,
+          arrived: breakdown.seated + breakdown.walkIns,
+          noShows: breakdown.didNotCome + breakdown.turnedAway,
+          breakdown,
+        },
         parties: mine.map(({ b, c }) => ({
           id: b.id,
           reference: b.reference,
@@ -99,6 +107,6 @@ export function assertSessionDay(session: TastingSession, venue: Venue, now = ne
   const start = DateTime.fromJSDate(session.startsAt, { zone: venue.timeZone })
   const today = DateTime.fromJSDate(now, { zone: venue.timeZone })
   if (!start.hasSame(today, 'day') && now < session.startsAt) {
-    throw createError({ statusCode: 409, statusMessage: 'Not today', message: `Check-in opens on the day of the session (${start.toFormat('ccc d LLL')}).` })
+    conflict(`Check-in opens on the day of the session (${start.toFormat('ccc d LLL')}).`)
   }
 }

@@ -23,12 +23,12 @@ export function uploadDir(): string {
  */
 export async function storeImage(data: Buffer, meta: { venueId: number, productId: number | null, role: ImageRole, altText: string, userId: number }) {
   if (data.length > IMAGE_MAX_BYTES) {
-    throw createError({ statusCode: 413, statusMessage: 'Too large', message: `Images may be at most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.`, data: { fields: { file: `At most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.` } } })
+    tooLarge(`Images may be at most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.`, { file: `At most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.` })
   }
   const type = await fileTypeFromBuffer(data)
   const mime = type?.mime as (typeof IMAGE_TYPES)[number] | undefined
   if (!mime || !IMAGE_TYPES.includes(mime)) {
-    throw createError({ statusCode: 415, statusMessage: 'Not an image we take', message: 'Upload a JPEG, PNG or WebP image. The file\'s contents were checked, not its name.', data: { fields: { file: 'Only JPEG, PNG or WebP.' } } })
+    throw createError({ status: 415, statusText: 'Not an image we take', message: 'Upload a JPEG, PNG or WebP image. The file\'s contents were checked, not its name.', data: { fields: { file: 'Only JPEG, PNG or WebP.' } } })
   }
   let pipeline = sharp(data, { failOn: 'error', limitInputPixels: 60_000_000 }).rotate().resize({ width: MAX_SIDE_PX, height: MAX_SIDE_PX, fit: 'inside', withoutEnlargement: true })
   pipeline = mime === 'image/png' ? pipeline.png({ compressionLevel: 9 }) : mime === 'image/webp' ? pipeline.webp({ quality: 85 }) : pipeline.jpeg({ quality: 85, mozjpeg: true })
@@ -37,7 +37,7 @@ export async function storeImage(data: Buffer, meta: { venueId: number, productI
     out = await pipeline.toBuffer({ resolveWithObject: true })
   }
   catch {
-    throw createError({ statusCode: 415, statusMessage: 'Unreadable image', message: 'This image could not be read. Try exporting it again as JPEG or PNG.', data: { fields: { file: 'The image could not be read.' } } })
+    throw createError({ status: 415, statusText: 'Unreadable image', message: 'This image could not be read. Try exporting it again as JPEG or PNG.', data: { fields: { file: 'The image could not be read.' } } })
   }
   const storedName = `${randomUUID()}.${EXT[mime]}`
   const dir = uploadDir()

@@ -148,7 +148,7 @@ export async function checkLabSheet(csv: string, sheet: LabSheetKind, venue: { i
   const spec = LAB_SHEETS[sheet]
   const { columns, records } = parseSheet(csv)
   if (records.length > LAB_SHEET_MAX_ROWS) {
-    throw createError({ statusCode: 400, statusMessage: 'Sheet too long', message: `A sheet may hold at most ${LAB_SHEET_MAX_ROWS} rows; split this one.` })
+    invalidFields({ csv: `A sheet may hold at most ${LAB_SHEET_MAX_ROWS} rows; split this one.` })
   }
   const missingColumns = spec.required.filter(c => !columns.includes(c))
   const known = new Set<string>([...spec.required, ...spec.optional])
@@ -222,10 +222,10 @@ export async function checkLabSheet(csv: string, sheet: LabSheetKind, venue: { i
 export async function commitLabSheet(checked: CheckedSheet, lines: number[], venueId: number): Promise<number> {
   const bad = lines.filter(l => !checked.valid.has(l))
   if (bad.length) {
-    throw createError({ statusCode: 400, statusMessage: 'Rows with errors', message: `These lines cannot be imported: ${bad.slice(0, 20).join(', ')}${bad.length > 20 ? '…' : ''}. Fix them or leave them out.`, data: { fields: { lines: `Lines with errors: ${bad.slice(0, 20).join(', ')}` } } })
+    invalidFields({ lines: `Lines with errors: ${bad.slice(0, 20).join(', ')}` }, `These lines cannot be imported: ${bad.slice(0, 20).join(', ')}${bad.length > 20 ? '…' : ''}. Fix them or leave them out.`)
   }
   const chosen = [...new Set(lines)].map(l => checked.valid.get(l)!)
-  if (!chosen.length) throw createError({ statusCode: 400, statusMessage: 'Nothing chosen', message: 'Choose at least one row to import.', data: { fields: { lines: 'Choose at least one row.' } } })
+  if (!chosen.length) invalidFields({ lines: 'Choose at least one row.' }, 'Choose at least one row to import.')
   await useDb().transaction(async (tx) => {
     const ids = new Map<string, number>()
     if (checked.check.sheet === 'products') {
@@ -249,7 +249,7 @@ export async function commitLabSheet(checked: CheckedSheet, lines: number[], ven
     }
   }).catch((err) => {
     if (!isDuplicateKey(err)) throw err
-    throw createError({ statusCode: 409, statusMessage: 'Duplicate code', message: 'Another import added some of these codes a moment ago. Check the sheet again.' })
+    conflict('Another import added some of these codes a moment ago. Check the sheet again.')
   })
   return chosen.length
 }

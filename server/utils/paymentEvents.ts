@@ -45,16 +45,17 @@ export async function processStripeEvent(event: Stripe.Event, rawBody: Buffer | 
       eventRowId = row!.id
     }
     catch (err) {
-      if (isDuplicateKey(err)) return { duplicate: true, outcome: 'already processed', refund: false }
+      if (isDuplicateKey(err)) return { duplicate: true, outcome: 'already processed', refund: false, staleCheckouts: [] as string[] }
       throw err
     }
     let outcome = 'ignored'
     let refund = false
+    let staleCheckouts: string[] = []
     if (bookingId === null) outcome = 'no matching booking'
     else if (event.type === 'checkout.session.completed') {
       const cs = event.data.object
       if (cs.payment_status === 'paid') {
-        ({ outcome, refund } = await applyBookingPayment(tx, venue, bookingId, { amountPaid: cs.amount_total ?? 0, paymentIntentId: idOf(cs.payment_intent) }))
+        ({ outcome, refund, staleCheckouts } = await applyBookingPayment(tx, venue, bookingId, { amountPaid: cs.amount_total ?? 0, paymentIntentId: idOf(cs.payment_intent) }))
       }
       else outcome = `checkout complete, payment ${cs.payment_status}`
     }
@@ -74,9 +75,10 @@ export async function processStripeEvent(event: Stripe.Event, rawBody: Buffer | 
       outcome = 'refund noted'
     }
     await tx.update(tables.paymentEvents).set({ outcome }).where(eq(tables.paymentEvents.id, eventRowId))
-    return { duplicate: false, outcome, refund }
+    return { duplicate: false, outcome, refund, staleCheckouts }
   })
   kickOutbox()
+  void expireCheckoutSessions(result.staleCheckouts)
   if (event.type === 'refund.created' && bookingId !== null && !result.duplicate) {
     // Our own refund call records the refund from its answer; this covers an answer that was lost.
     const refund = event.data.object

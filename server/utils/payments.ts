@@ -12,7 +12,7 @@ export function useStripe(): Stripe {
   if (!client) {
     const { stripe } = useRuntimeConfig()
     if (!stripe.secretKey) {
-      throw createError({ statusCode: 503, statusMessage: 'Payments not set up', message: 'Online payment is not set up yet. Please contact the venue to book.' })
+      throw createError({ status: 503, statusText: 'Payments not set up', message: 'Online payment is not set up yet. Please contact the venue to book.' })
     }
     client = new Stripe(stripe.secretKey, {
       ...(stripe.apiHost
@@ -42,13 +42,13 @@ export function checkoutMinLifetimeMs(): number {
 /** Verifies a webhook delivery on its raw body; anything unsigned or wrongly signed is a 400. */
 export function verifyStripeEvent(raw: Buffer | string | undefined, signature: string | undefined): Stripe.Event {
   const secret = useRuntimeConfig().stripe.webhookSecret
-  if (!secret) throw createError({ statusCode: 503, statusMessage: 'Payments not set up', message: 'The webhook secret is not configured.' })
-  if (!raw || !signature) throw createError({ statusCode: 400, statusMessage: 'Unsigned', message: 'Missing body or Stripe-Signature header.' })
+  if (!secret) throw createError({ status: 503, statusText: 'Payments not set up', message: 'The webhook secret is not configured.' })
+  if (!raw || !signature) throw createError({ status: 400, statusText: 'Unsigned', message: 'Missing body or Stripe-Signature header.' })
   try {
     return useStripe().webhooks.constructEvent(raw, signature, secret)
   }
   catch {
-    throw createError({ statusCode: 400, statusMessage: 'Bad signature', message: 'The Stripe-Signature header does not match the body.' })
+    throw createError({ status: 400, statusText: 'Bad signature', message: 'The Stripe-Signature header does not match the body.' })
   }
 }
 

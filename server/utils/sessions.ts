@@ -10,12 +10,12 @@ import type { SessionRow } from '../../shared/types/sessions'
  */
 export function weeklyStartsUtc(opts: { startDate: string, startTime: string, weeks: number, timeZone: string }): Date[] {
   const first = DateTime.fromISO(`${opts.startDate}T${opts.startTime}`, { zone: opts.timeZone })
-  if (!first.isValid) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'That start date and time are not valid.', data: { fields: { startDate: 'That start date and time are not valid.' } } })
+  if (!first.isValid) invalidFields({ startDate: 'That start date and time are not valid.' })
   const starts: Date[] = []
   for (let i = 0; i < opts.weeks; i++) {
     const local = first.plus({ weeks: i })
     if (local.toFormat('HH:mm') !== opts.startTime) {
-      throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `${local.toISODate()} has no ${opts.startTime} in ${opts.timeZone} (the clocks change that night). Choose another time.`, data: { fields: { startTime: `${opts.startTime} does not exist on ${local.toISODate()} in ${opts.timeZone}.` } } })
+      invalidFields({ startTime: `${opts.startTime} does not exist on ${local.toISODate()} in ${opts.timeZone}.` }, `${local.toISODate()} has no ${opts.startTime} in ${opts.timeZone} (the clocks change that night). Choose another time.`)
     }
     starts.push(local.toUTC().toJSDate())
   }
@@ -50,7 +50,7 @@ export async function assertHost(venueId: number, hostId: number | null): Promis
   if (hostId === null) return
   const [host] = await useDb().select().from(tables.users).where(eq(tables.users.id, hostId))
   if (!host || host.disabled || (host.role !== 'host' && host.role !== 'manager')) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'Choose an active host or manager to run the session.', data: { fields: { hostId: 'Choose an active host or manager.' } } })
+    invalidFields({ hostId: 'Choose an active host or manager.' }, 'Choose an active host or manager to run the session.')
   }
 }
 

@@ -15,8 +15,8 @@ function tooMany(seconds: number, scope: 'account' | 'ip'): never {
   const minutes = Math.max(1, Math.ceil(seconds / 60))
   const what = scope === 'account' ? 'for this account' : 'from your network'
   throw createError({
-    statusCode: 429,
-    statusMessage: 'Too many attempts',
+    status: 429,
+    statusText: 'Too many attempts',
     message: `Too many failed sign-ins ${what}. Try again in ${minutes} minute${minutes === 1 ? '' : 's'}, or reset your password.`,
     data: { retryAfterSeconds: seconds },
   })

@@ -30,9 +30,9 @@ async function consumeToken(tx: Tx, raw: string, purpose: Purpose): Promise<numb
     .where(and(eq(tables.authTokens.tokenHash, hashToken(raw)), eq(tables.authTokens.purpose, purpose)))
     .for('update')
   const ask = purpose === 'invite' ? 'Ask your manager to send a new invitation.' : 'Ask for a new password reset link.'
-  if (!row) throw createError({ statusCode: 400, statusMessage: 'Invalid link', message: `This link is not valid. ${ask}`, data: { fields: { token: 'This link is not valid.' } } })
-  if (row.usedAt) throw createError({ statusCode: 410, statusMessage: 'Link used', message: `This link has already been used. ${ask}`, data: { fields: { token: 'This link has already been used.' } } })
-  if (row.expiresAt.getTime() <= Date.now()) throw createError({ statusCode: 410, statusMessage: 'Link expired', message: `This link has expired. ${ask}`, data: { fields: { token: 'This link has expired.' } } })
+  if (!row) invalidFields({ token: 'This link is not valid.' }, `This link is not valid. ${ask}`)
+  if (row.usedAt) throw createError({ status: 410, statusText: 'Link used', message: `This link has already been used. ${ask}`, data: { fields: { token: 'This link has already been used.' } } })
+  if (row.expiresAt.getTime() <= Date.now()) throw createError({ status: 410, statusText: 'Link expired', message: `This link has expired. ${ask}`, data: { fields: { token: 'This link has expired.' } } })
   const now = new Date()
   await tx.update(tables.authTokens).set({ usedAt: now })
     .where(and(eq(tables.authTokens.userId, row.userId), eq(tables.authTokens.purpose, purpose), isNull(tables.authTokens.usedAt)))
@@ -52,7 +52,7 @@ export async function setPasswordFromLink(event: H3Event, purpose: Purpose): Pro
     const [row] = await tx.select().from(tables.users).where(eq(tables.users.id, userId))
     return row!
   })
-  if (user.disabled) throw createError({ statusCode: 403, statusMessage: 'Account disabled', message: 'This account has been disabled. Ask the venue manager.' })
+  if (user.disabled) throw createError({ status: 403, statusText: 'Account disabled', message: 'This account has been disabled. Ask the venue manager.' })
   await clearAccountThrottle(`account:${user.email}`)
   const sessionUser = sessionUserOf(user)
   await setUserSession(event, { user: sessionUser })

@@ -4,12 +4,7 @@ import { fieldErrorsFromZod } from '../../shared/utils/fieldErrors'
 
 function invalid(error: z.ZodError): never {
   const fields = fieldErrorsFromZod(error)
-  throw createError({
-    statusCode: 400,
-    statusMessage: 'Invalid input',
-    message: Object.values(fields).join(' '),
-    data: { fields },
-  })
+  invalidFields(fields)
 }
 
 async function parseWith<S extends z.ZodType>(schema: S, value: unknown): Promise<z.output<S>> {
@@ -42,10 +37,10 @@ function forbiddenTextAt(value: unknown, path: string[] = []): string | null {
 
 function refuseForbiddenText(value: unknown): void {
   const at = forbiddenTextAt(value)
-  if (at) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: TEXT_MESSAGE, data: { fields: { [at]: TEXT_MESSAGE } } })
+  if (at) invalidFields({ [at]: TEXT_MESSAGE })
 }
 
-const notJson = () => createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The request body is not valid JSON.', data: { fields: { _: 'The request body is not valid JSON.' } } })
+const notJson = (): never => invalidFields({ _: 'The request body is not valid JSON.' })
 
 /**
  * Reads and validates the JSON body. Over the route's size limit → 413; malformed JSON, forbidden
@@ -57,7 +52,7 @@ export async function readBodyAs<S extends z.ZodType>(event: H3Event, schema: S)
   let body: unknown = {}
   if (raw && raw.trim()) {
     try { body = JSON.parse(raw) }
-    catch { throw notJson() }
+    catch { notJson() }
   }
   refuseForbiddenText(body)
   return parseWith(schema, body ?? {})
@@ -67,7 +62,7 @@ export async function readBodyAs<S extends z.ZodType>(event: H3Event, schema: S)
 export function readQueryAs<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
   const query = getQuery(event)
   for (const [key, value] of Object.entries(query)) {
-    if (Array.isArray(value)) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `Give ${key} once.`, data: { fields: { [key]: `Give ${key} once.` } } })
+    if (Array.isArray(value)) invalidFields({ [key]: `Give ${key} once.` })
   }
   refuseForbiddenText(query)
   return parseWith(schema, query)

@@ -4,7 +4,7 @@ import type { Venue } from '../db/schema/venues'
 /** The venue (one per installation for now; the tables already carry venue_id). */
 export async function getVenue(): Promise<Venue> {
   const [venue] = await useDb().select().from(tables.venues).orderBy(asc(tables.venues.id)).limit(1)
-  if (!venue) throw createError({ statusCode: 503, statusMessage: 'Not set up', message: 'The venue has not been set up yet.' })
+  if (!venue) throw createError({ status: 503, statusText: 'Not set up', message: 'The venue has not been set up yet.' })
   return venue
 }
 

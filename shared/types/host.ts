@@ -1,4 +1,5 @@
 import type { BookingState } from '../bookings'
+import type { SeatBreakdown } from '../seats'
 import type { SessionStatus } from '../sessions'
 
 /** The door outcome recorded for a party. */
@@ -22,8 +23,8 @@ export interface HostParty {
   checkIn: HostCheckIn | null
 }
 
-/** The counts at a glance for one session of the day. */
-export interface HostSessionCounts { seats: number, taken: number, seatsLeft: number, expected: number, arrived: number, noShows: number }
+/** The counts at a glance; `breakdown` is the one seat rule's (shared/seats.ts). */
+export interface HostSessionCounts { seats: number, taken: number, seatsLeft: number, expected: number, arrived: number, noShows: number, breakdown: SeatBreakdown }
 
 /** One session of the host's day. */
 export interface HostSession {

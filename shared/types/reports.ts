@@ -1,4 +1,5 @@
 import type { BookingEndReason, BookingState } from '../bookings'
+import type { SeatBreakdown } from '../seats'
 import type { SessionRow } from './sessions'
 
 /** One booking in the manager's bookings report. */
@@ -26,7 +27,12 @@ export interface ReportBooking {
 export interface ReportSession {
   session: SessionRow
   bookings: ReportBooking[]
+  /** Seats by the one seat rule (shared/seats.ts), as every other screen counts them. */
   seatsTaken: number
+  seatsLeft: number
+  /** Taken, plus parties that did not come or were turned away: what the fill rate counts. */
+  seatsSold: number
+  seatBreakdown: SeatBreakdown
   fillRate: number
   paidMinor: number
   refundedMinor: number
@@ -39,7 +45,7 @@ export interface BookingReport {
   to: string
   currency: string
   sessions: ReportSession[]
-  totals: { sessions: number, seats: number, seatsTaken: number, fillRate: number, bookings: number, paidMinor: number, refundedMinor: number, revenueMinor: number }
+  totals: { sessions: number, seats: number, seatsTaken: number, seatsLeft: number, seatsSold: number, fillRate: number, bookings: number, paidMinor: number, refundedMinor: number, revenueMinor: number }
 }
 
 /** The manager's first screen (GET /api/manage/overview). */

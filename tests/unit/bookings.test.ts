@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { BOOKING_STATES, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, SEAT_TAKING_STATES, canTransition, type BookingEvent, type BookingState } from '../../shared/bookings'
+import { BOOKING_STATES, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, canTransition, type BookingEvent, type BookingState } from '../../shared/bookings'
 import { minorToDecimal } from '../../shared/money'
 import { bookingCreateSchema, bookingReportQuerySchema } from '../../shared/schemas/bookings'
 import { fieldErrorsFromZod } from '../../shared/utils/fieldErrors'
@@ -28,10 +28,6 @@ describe('the booking state diagram', () => {
         expect(canTransition(from, event), `${from} ${event}`).toBe(allowed.has(`${from}:${event}`))
       }
     }
-  })
-
-  it('counts held, confirmed and checked-in bookings as seats taken', () => {
-    expect([...SEAT_TAKING_STATES].sort()).toEqual(['checked_in', 'confirmed', 'held'])
   })
 })
 

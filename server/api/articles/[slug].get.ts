@@ -11,6 +11,6 @@ export default defineEventHandler(async (event): Promise<ArticleView> => {
   const subject = await resolveSubject(venue.id, 'article', slug)
   const doc = await findDoc(useDb(), venue.id, 'article', subject)
   const body = doc ? (doc.status === 'published' ? doc.publishedBody : null) : subject.default!.body
-  if (!body) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such article.' })
+  if (!body) notFound('No such article.')
   return { slug, title: doc?.publishedTitle || subject.default!.title, summary: subject.default!.summary, html: renderMarkdown(body) }
 })

@@ -17,10 +17,10 @@ export default defineEventHandler(async (event) => {
 
   if (!row || !ok) {
     await recordSignInFailure(keys)
-    throw createError({ statusCode: 401, statusMessage: 'Wrong e-mail or password', message: 'That e-mail and password do not match an account.' })
+    throw createError({ status: 401, statusText: 'Wrong e-mail or password', message: 'That e-mail and password do not match an account.' })
   }
   if (row.disabled) {
-    throw createError({ statusCode: 403, statusMessage: 'Account disabled', message: 'This account has been disabled. Ask the venue manager.' })
+    throw createError({ status: 403, statusText: 'Account disabled', message: 'This account has been disabled. Ask the venue manager.' })
   }
   await clearAccountThrottle(keys.account)
   const user = sessionUserOf(row)

@@ -15,9 +15,9 @@ export default defineEventHandler(async (event) => {
   await useDb().transaction(async (tx) => {
     const flight = await lockFlightForEdit(tx, venue.id, id)
     if (input.pours) {
-      if (flight.status === 'retired') throw createError({ statusCode: 409, statusMessage: 'Retired', message: 'This flight is retired; its pours can no longer change.' })
+      if (flight.status === 'retired') conflict('This flight is retired; its pours can no longer change.')
       if (flight.status === 'published' && await flightSessionCount(tx, id) > 0) {
-        throw createError({ statusCode: 409, statusMessage: 'Flight in use', message: 'This flight is published and has sessions, so guests have booked these pours. Make a new version to change them; the sessions already scheduled keep this one.' })
+        conflict('This flight is published and has sessions, so guests have booked these pours. Make a new version to change them; the sessions already scheduled keep this one.')
       }
       await writePours(tx, id, input.pours)
     }

@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const venue = await getVenue()
   const [row] = await useDb().select().from(tables.images).where(and(eq(tables.images.id, id), eq(tables.images.venueId, venue.id)))
-  if (!row) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such image.' })
+  if (!row) notFound('No such image.')
   await useDb().delete(tables.images).where(eq(tables.images.id, id))
   await removeImageFiles(row.storedName)
   return { ok: true }

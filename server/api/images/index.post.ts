@@ -14,19 +14,19 @@ export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'manager', 'marketing')
   const length = Number(getRequestHeader(event, 'content-length') ?? 0)
   if (length > IMAGE_MAX_BYTES + 64 * 1024) {
-    throw createError({ statusCode: 413, statusMessage: 'Too large', message: `Images may be at most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.`, data: { fields: { file: `At most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.` } } })
+    tooLarge(`Images may be at most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.`, { file: `At most ${IMAGE_MAX_BYTES / 1024 / 1024} MB.` })
   }
   const parts = await readMultipartFormData(event).catch(() => null)
-  if (!parts) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'Send the image as a multipart form.', data: { fields: { file: 'Attach an image.' } } })
+  if (!parts) invalidFields({ file: 'Attach an image.' }, 'Send the image as a multipart form.')
   const file = parts.find(p => p.name === 'file' && p.filename !== undefined)
   const text = Object.fromEntries(parts.filter(p => p.filename === undefined && p.name).map(p => [p.name!, p.data.toString('utf8')]))
   const parsed = fields.safeParse(text)
   const errors: Record<string, string> = parsed.success ? {} : fieldErrorsFromZod(parsed.error)
   if (!file?.data.length) errors.file = 'Attach an image.'
-  if (Object.keys(errors).length || !parsed.success) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: Object.values(errors).join(' '), data: { fields: errors } })
+  if (Object.keys(errors).length || !parsed.success) invalidFields(errors)
   const venue = await getVenue()
   const [product] = await useDb().select({ id: tables.products.id }).from(tables.products).where(and(eq(tables.products.id, parsed.data.productId), eq(tables.products.venueId, venue.id)))
-  if (!product) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such product.' })
+  if (!product) notFound('No such product.')
   const id = await storeImage(file!.data, { venueId: venue.id, productId: product.id, role: parsed.data.role, altText: parsed.data.altText, userId: user.id })
   const [row] = await useDb().select().from(tables.images).where(eq(tables.images.id, id))
   setResponseStatus(event, 201)

@@ -11,15 +11,16 @@ export default defineEventHandler(async (event) => {
   await useDb().transaction(async (tx) => {
     const [row] = await tx.select({ id: tables.products.id }).from(tables.products)
       .where(and(eq(tables.products.id, id), eq(tables.products.venueId, venue.id))).for('update')
-    if (!row) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such product.' })
+    if (!row) notFound('No such product.')
     if (patch.code) {
       const [dup] = await tx.select({ id: tables.products.id }).from(tables.products)
         .where(and(eq(tables.products.venueId, venue.id), eq(tables.products.code, patch.code), ne(tables.products.id, id)))
-      if (dup) throw duplicateCodeError(patch.code)
+      if (dup) refuseDuplicateCode(patch.code)
     }
     await tx.update(tables.products).set(patch).where(eq(tables.products.id, id))
   }).catch((err) => {
-    throw isDuplicateKey(err) && patch.code ? duplicateCodeError(patch.code) : err
+    if (isDuplicateKey(err) && patch.code) refuseDuplicateCode(patch.code)
+    throw err
   })
   return productView(await loadProduct(venue.id, id, true), venue, user.role)
 })

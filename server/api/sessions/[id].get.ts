@@ -6,6 +6,6 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const venue = await getVenue()
   const [view] = await loadSessionViews(and(eq(tables.tastingSessions.id, id), eq(tables.tastingSessions.venueId, venue.id)), venue.timeZone)
-  if (!view) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such session.' })
+  if (!view) notFound('No such session.')
   return view
 })

@@ -11,8 +11,8 @@ export default defineEventHandler(async (event) => {
   if (patch.hostId !== undefined) await assertHost(venue.id, patch.hostId)
   await useDb().transaction(async (tx) => {
     const [s] = await tx.select().from(tables.tastingSessions).where(and(eq(tables.tastingSessions.id, id), eq(tables.tastingSessions.venueId, venue.id))).for('update')
-    if (!s) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such session.' })
-    if (s.status === 'cancelled') throw createError({ statusCode: 409, statusMessage: 'Cancelled', message: 'This session is cancelled and can no longer change.' })
+    if (!s) notFound('No such session.')
+    if (s.status === 'cancelled') conflict('This session is cancelled and can no longer change.')
     await tx.update(tables.tastingSessions).set(patch).where(eq(tables.tastingSessions.id, id))
   })
   const [view] = await loadSessionViews(eq(tables.tastingSessions.id, id), venue.timeZone)

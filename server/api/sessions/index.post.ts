@@ -10,12 +10,12 @@ export default defineEventHandler(async (event) => {
   const db = useDb()
   const flight = await loadFlight(venue, input.flightId).catch(() => null)
   if (!flight || flight.status !== 'published') {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'Choose a published flight.', data: { fields: { flightId: 'Choose a published flight.' } } })
+    invalidFields({ flightId: 'Choose a published flight.' })
   }
   await assertHost(venue.id, input.hostId ?? null)
   const starts = weeklyStartsUtc({ startDate: input.startDate, startTime: input.startTime, weeks: input.repeatWeeks, timeZone: venue.timeZone })
   if (starts[0]!.getTime() < Date.now()) {
-    throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'The first session must start in the future.', data: { fields: { startDate: 'The first session must start in the future.' } } })
+    invalidFields({ startDate: 'The first session must start in the future.' })
   }
   const seriesId = starts.length > 1 ? randomUUID() : null
   const ids = await db.transaction(async (tx) => {

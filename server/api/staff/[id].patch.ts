@@ -8,11 +8,11 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const patch = await readBodyAs(event, staffPatchSchema)
   if (id === manager.id) {
-    throw createError({ statusCode: 409, statusMessage: 'Own account', message: 'You cannot change your own role or disable your own account. Ask another manager.' })
+    conflict('You cannot change your own role or disable your own account. Ask another manager.')
   }
   return useDb().transaction(async (tx) => {
     const [user] = await tx.select().from(tables.users).where(and(eq(tables.users.id, id), ne(tables.users.role, 'guest'))).for('update')
-    if (!user) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such staff member.' })
+    if (!user) notFound('No such staff member.')
     await tx.update(tables.users).set(patch).where(eq(tables.users.id, id))
     const [row] = await tx.select().from(tables.users).where(eq(tables.users.id, id))
     return { id: row!.id, name: row!.name, email: row!.email, role: row!.role, disabled: row!.disabled, invitationPending: row!.passwordHash === null }

@@ -6,9 +6,9 @@ import { tastingSessions } from './sessions'
 import { BOOKING_END_REASONS, BOOKING_STATES } from '../../../shared/bookings'
 
 /**
- * Seats a guest booked in one session. Seats left = seats − party sizes of held, confirmed and
- * checked-in bookings; every change of `state` happens in one transaction with the session row
- * locked. Amounts are integer minor units of `currency`.
+ * Seats a guest booked in one session. Seats left = seats − party sizes of held (while the hold
+ * lasts), confirmed and checked-in bookings (the rule: shared/seats.ts); every change of `state`
+ * happens in one transaction with the session row locked. Amounts are integer minor units of `currency`.
  */
 export const bookings = mysqlTable('bookings', {
   id: int('id').autoincrement().primaryKey(),

@@ -16,11 +16,11 @@ const TYPES = { webp: 'image/webp', jpeg: 'image/jpeg', png: 'image/png', jpg: '
  */
 export default defineEventHandler(async (event) => {
   const name = getRouterParam(event, 'name') ?? ''
-  if (!STORED_NAME.test(name)) throw createError({ statusCode: 404, statusMessage: 'Not found' })
+  if (!STORED_NAME.test(name)) notFound('Not found')
   const q = await readQueryAs(event, query)
   const dir = uploadDir()
   const original = await readFile(resolve(dir, name)).catch(() => null)
-  if (!original) throw createError({ statusCode: 404, statusMessage: 'Not found' })
+  if (!original) notFound('Not found')
   const ext = name.split('.').pop() as 'jpg' | 'png' | 'webp'
   setResponseHeader(event, 'cache-control', 'public, max-age=31536000, immutable')
   setResponseHeader(event, 'x-content-type-options', 'nosniff')

@@ -9,8 +9,8 @@ export default defineEventHandler(async (event) => {
   assertSessionDay(session, venue)
   await bookingTransaction(async (tx) => {
     const { booking } = await lockBookingWithSession(tx, id)
-    if (input.seated > booking.partySize) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: `This party booked ${booking.partySize}.`, data: { fields: { seated: `At most ${booking.partySize}.` } } })
-    if (input.seated < booking.partySize && !input.reason) throw createError({ statusCode: 400, statusMessage: 'Invalid input', message: 'Say why not everyone in the party is seated.', data: { fields: { reason: 'Say why not everyone is seated (e.g. no ID).' } } })
+    if (input.seated > booking.partySize) invalidFields({ seated: `At most ${booking.partySize}.` }, `This party booked ${booking.partySize}.`)
+    if (input.seated < booking.partySize && !input.reason) invalidFields({ reason: 'Say why not everyone is seated (e.g. no ID).' }, 'Say why not everyone in the party is seated.')
     await moveBooking(tx, booking, 'arrive', { checkedInAt: new Date() })
     await recordCheckIn(tx, id, user.id, { outcome: 'arrived', seated: input.seated, idsSeen: input.idsSeen, reason: input.reason })
   })

@@ -4,7 +4,7 @@ import { idParam } from '../../../../shared/schemas/common'
 export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const { user, session } = await requireSessionHost(event, await bookingSessionId(id))
-  if (new Date() < session.startsAt) throw createError({ statusCode: 409, statusMessage: 'Too early', message: 'A party can be marked as not coming only after the session has started.' })
+  if (new Date() < session.startsAt) conflict('A party can be marked as not coming only after the session has started.')
   await bookingTransaction(async (tx) => {
     const { booking } = await lockBookingWithSession(tx, id)
     await moveBooking(tx, booking, 'no_show')

@@ -10,7 +10,7 @@ export default defineEventHandler(async (event) => {
   const venue = await getVenue()
   const [product] = await useDb().select({ id: tables.products.id }).from(tables.products)
     .where(and(eq(tables.products.id, id), eq(tables.products.venueId, venue.id)))
-  if (!product) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such product.' })
+  if (!product) notFound('No such product.')
   await useDb().insert(tables.productMeasurements).values({ ...m, notes: m.notes ?? null, productId: id })
   setResponseStatus(event, 201)
   return productView(await loadProduct(venue.id, id, true), venue, user.role)

@@ -8,7 +8,7 @@ export default defineEventHandler(async (event): Promise<CardJobStarted> => {
   const { paper, names } = await readBodyAs(event, sessionCardsSchema)
   const { user, venue, session } = await requireSessionHost(event, id)
   const cards = await sessionCards(venue, session, names)
-  if (!cards.length) throw createError({ statusCode: 409, statusMessage: 'No guests', message: 'Nobody is booked or seated in this session yet.' })
+  if (!cards.length) conflict('Nobody is booked or seated in this session yet.')
   const job = startCardJob(user.id, cards, paper, `session-${id}-cards-${paper}.pdf`)
   setResponseStatus(event, 202)
   return { jobId: job.id, total: job.total }

@@ -10,11 +10,12 @@ export default defineEventHandler(async (event) => {
   const input = await readBodyAs(event, walkInSchema)
   const { user, venue, session } = await requireSessionHost(event, id)
   assertSessionDay(session, venue)
-  const bookingId = await bookingTransaction(async (tx) => {
+  const { bookingId, staleCheckouts } = await bookingTransaction(async (tx) => {
     const locked = await lockSessionRow(tx, id)
-    const left = locked.seats - await seatsTaken(tx, id)
-    if (input.partySize > left) bookingConflict(left ? `Only ${left} seat${left === 1 ? '' : 's'} left.` : 'No seats left in this session.', { seatsLeft: left })
     const now = new Date()
+    const { count, staleCheckouts } = await lockedSeatCount(tx, locked, now)
+    const left = count.seatsLeft
+    if (input.partySize > left) conflict(left ? `Only ${left} seat${left === 1 ? '' : 's'} left.` : 'No seats left in this session.', { seatsLeft: left })
     const [row] = await tx.insert(tables.bookings).values({
       venueId: venue.id, sessionId: id, userId: user.id, reference: newBookingReference(), state: 'checked_in', source: 'walk_in',
       partySize: input.partySize, contactName: input.contactName, contactEmail: '', contactPhone: '', notes: input.notes,
@@ -22,8 +23,9 @@ export default defineEventHandler(async (event) => {
       holdExpiresAt: now, confirmedAt: now, checkedInAt: now,
     }).$returningId()
     await recordCheckIn(tx, row!.id, user.id, { outcome: 'arrived', seated: input.partySize, idsSeen: input.idsSeen })
-    return row!.id
+    return { bookingId: row!.id, staleCheckouts }
   })
+  void expireCheckoutSessions(staleCheckouts)
   setResponseStatus(event, 201)
   return { id: bookingId }
 })

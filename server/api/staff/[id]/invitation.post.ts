@@ -7,8 +7,8 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   await useDb().transaction(async (tx) => {
     const [user] = await tx.select().from(tables.users).where(and(eq(tables.users.id, id), ne(tables.users.role, 'guest'))).for('update')
-    if (!user) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such staff member.' })
-    if (user.passwordHash) throw createError({ statusCode: 409, statusMessage: 'Already accepted', message: 'This person has already set a password.' })
+    if (!user) notFound('No such staff member.')
+    if (user.passwordHash) conflict('This person has already set a password.')
     await tx.update(tables.authTokens).set({ usedAt: new Date() }).where(and(eq(tables.authTokens.userId, id), eq(tables.authTokens.purpose, 'invite'), isNull(tables.authTokens.usedAt)))
     await queueInvitation(tx, { userId: id, email: user.email, name: user.name, role: user.role, invitedBy: manager })
   })

@@ -6,7 +6,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { id } = await readParamsAs(event, idParam)
   const view = await loadGuestBooking(user.id, id)
-  if (view.state !== 'confirmed' && view.state !== 'checked_in') bookingConflict('Only a confirmed booking has a calendar entry.')
+  if (view.state !== 'confirmed' && view.state !== 'checked_in') conflict('Only a confirmed booking has a calendar entry.')
   const venue = await getVenue()
   const [row] = await useDb().select({ b: tables.bookings, s: tables.tastingSessions }).from(tables.bookings)
     .innerJoin(tables.tastingSessions, eq(tables.tastingSessions.id, tables.bookings.sessionId)).where(eq(tables.bookings.id, id))

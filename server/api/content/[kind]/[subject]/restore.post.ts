@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const { revisionId } = await readBodyAs(event, contentRestoreSchema)
   const doc = await findDoc(useDb(), venue.id, kind, subject)
   const [rev] = doc ? await useDb().select().from(tables.contentRevisions).where(and(eq(tables.contentRevisions.id, revisionId), eq(tables.contentRevisions.docId, doc.id))) : []
-  if (!rev) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'No such revision of this text.' })
+  if (!rev) notFound('No such revision of this text.')
   await useDb().transaction(tx => writeDoc(tx, venue.id, kind, subject, user.id, { title: rev.title, draftBody: rev.body, action: 'restore' }))
   return docView(await findDoc(useDb(), venue.id, kind, subject), subject)
 })

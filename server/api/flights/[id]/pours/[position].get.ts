@@ -14,7 +14,7 @@ export default defineEventHandler(async (event): Promise<PourPage> => {
   const venue = await getVenue()
   const view = await flightView(venue, await loadFlight(venue, id, { publishedOnly: true }))
   const pour = view.pours.find(p => p.position === position)
-  if (!pour) throw createError({ statusCode: 404, statusMessage: 'Not found', message: 'This flight has no such pour.' })
+  if (!pour) notFound('This flight has no such pour.')
   const card = buildFlightCard({ venue, flight: { ...view, pours: [pour] }, publicUrl: appLink(`/pour/${id}`) })
   return {
     venue: { name: venue.name, temperatureUnit: venue.temperatureUnit },

@@ -1,0 +1,127 @@
+// The booking rules, part 2: holding seats and opening the Checkout Session for them.
+import { and, eq, gt, sql } from 'drizzle-orm'
+import { DateTime } from 'luxon'
+import type { Booking } from '../../db/schema/bookings'
+import type { TastingSession } from '../../db/schema/sessions'
+import type { Venue } from '../../db/schema/venues'
+import type { CurrentUser } from '../auth'
+import type { z } from 'zod'
+import type { bookingCreateSchema } from '../../../shared/schemas/bookings'
+import { ageOn } from '../../../shared/schemas/auth'
+
+/** Unpaid holds one guest may keep open at once, so that nobody can sit on a venue's seats. */
+const LIVE_HOLDS_PER_GUEST = 3
+
+type BookingInput = z.output<typeof bookingCreateSchema>
+
+/**
+ * Holds seats and opens a Checkout Session. One transaction locks the session row, releases its
+ * run-out holds, counts the seats still taken and inserts the hold; the payment provider is called
+ * only after it commits. If that call fails the hold is released and the guest gets a 503.
+ */
+export async function createBookingHold(user: CurrentUser, input: BookingInput): Promise<{ booking: Booking, checkoutUrl: string }> {
+  const venue = await getVenue()
+  const db = useDb()
+  const { booking: cfg } = useRuntimeConfig()
+  const [account] = await db.select({ dateOfBirth: tables.users.dateOfBirth }).from(tables.users).where(eq(tables.users.id, user.id))
+  if (account?.dateOfBirth && account.dateOfBirth !== input.dateOfBirth) {
+    invalidFields({ dateOfBirth: 'This is not the date of birth on your account. If your account has it wrong, please contact the venue.' })
+  }
+  const [pre] = await db.select().from(tables.tastingSessions)
+    .where(and(eq(tables.tastingSessions.id, input.sessionId), eq(tables.tastingSessions.venueId, venue.id)))
+  if (!pre) invalidFields({ sessionId: 'No such session.' })
+  const sessionDay = DateTime.fromJSDate(pre.startsAt, { zone: venue.timeZone }).toISODate()!
+  if (ageOn(input.dateOfBirth, sessionDay) < venue.legalAge) {
+    invalidFields({ dateOfBirth: `You must be ${venue.legalAge} or older on the day of the session to book. Local law sets this age and our hosts follow it.` })
+  }
+
+  const now = new Date()
+  const [{ live } = { live: 0 }] = await db.select({ live: sql<number>`count(*)`.mapWith(Number) }).from(tables.bookings)
+    .where(and(eq(tables.bookings.userId, user.id), eq(tables.bookings.state, 'held'), gt(tables.bookings.holdExpiresAt, now)))
+  if (live >= LIVE_HOLDS_PER_GUEST) {
+    conflict(`You already have ${live} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
+  }
+  const holdMs = Math.max(1, Number(cfg.holdMinutes)) * 60_000
+  const { booking, staleCheckouts } = await bookingTransaction(async (tx) => {
+    const session = await lockSessionRow(tx, input.sessionId)
+    if (session.status === 'cancelled') conflict('This session has been cancelled. Please choose another one.')
+    if (session.status !== 'open') conflict('This session is not taking bookings. Please choose another one.')
+    const closesAt = session.startsAt.getTime() - session.bookingCutoffMinutes * 60_000
+    if (now.getTime() >= closesAt) conflict(`Booking for this session closed ${session.bookingCutoffMinutes} minutes before the start. Please choose another session.`)
+
+    const { count, staleCheckouts } = await lockedSeatCount(tx, session, now)
+    const left = count.seatsLeft
+    if (input.partySize > left) {
+      conflict(left <= 0 ? 'Sorry, this session is now full. Please choose another one.' : `Only ${left} seat${left === 1 ? '' : 's'} left in this session. Choose a smaller party or another session.`, { seatsLeft: left })
+    }
+    const values = {
+      venueId: venue.id, sessionId: session.id, userId: user.id, reference: newBookingReference(), state: 'held' as const,
+      partySize: input.partySize, contactName: input.contactName, contactEmail: input.contactEmail, contactPhone: input.contactPhone, notes: input.notes ?? null,
+      ageConfirmed: input.ageConfirmed, unitPriceMinor: session.priceMinor, amountMinor: session.priceMinor * input.partySize,
+      currency: session.currency, holdExpiresAt: new Date(now.getTime() + holdMs),
+    }
+    const [row] = await tx.insert(tables.bookings).values(values).$returningId()
+    if (!account?.dateOfBirth) await tx.update(tables.users).set({ dateOfBirth: input.dateOfBirth }).where(eq(tables.users.id, user.id))
+    const [booking] = await tx.select().from(tables.bookings).where(eq(tables.bookings.id, row!.id))
+    return { booking: booking!, staleCheckouts }
+  })
+  void expireCheckoutSessions(staleCheckouts)
+
+  const flightName = await flightNameOf(pre.flightId)
+  if (booking.amountMinor === 0) {
+    // A free session needs no payment: the hold is confirmed at once.
+    await confirmBookingPaid(booking.id, { amountPaid: 0, paymentIntentId: null })
+    return { booking, checkoutUrl: appLink(`/bookings/${booking.id}?paid=1`) }
+  }
+  try {
+    const checkout = await openCheckout(venue, booking, pre, flightName)
+    await db.update(tables.bookings).set({ checkoutSessionId: checkout.id, checkoutUrl: checkout.url })
+      .where(and(eq(tables.bookings.id, booking.id), eq(tables.bookings.state, 'held')))
+    return { booking: { ...booking, checkoutSessionId: checkout.id, checkoutUrl: checkout.url }, checkoutUrl: checkout.url! }
+  }
+  catch (err) {
+    console.error(`[bookings] checkout for booking ${booking.id} failed:`, (err as Error).message)
+    await bookingTransaction(async (tx) => {
+      const locked = await lockBookingWithSession(tx, booking.id)
+      if (locked.booking.state === 'held') await moveBooking(tx, locked.booking, 'expire', { expiredAt: new Date(), endReason: 'checkout_failed' })
+    })
+    throw createError({ status: 503, statusText: 'Payment unavailable', message: 'We could not reach the payment service, so nothing was booked and nothing was charged. Please try again in a few minutes.' })
+  }
+}
+
+async function openCheckout(venue: Venue, booking: Booking, session: TastingSession, flightName: string) {
+  const expiresAtMs = Math.max(booking.holdExpiresAt.getTime(), Date.now() + checkoutMinLifetimeMs() + 60_000)
+  const when = new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeStyle: 'short', timeZone: venue.timeZone }).format(session.startsAt)
+  const metadata = { bookingId: String(booking.id), reference: booking.reference }
+  const checkout = await useStripe().checkout.sessions.create({
+    mode: 'payment',
+    line_items: [{
+      quantity: booking.partySize,
+      price_data: {
+        currency: booking.currency.toLowerCase(),
+        unit_amount: booking.unitPriceMinor,
+        product_data: { name: `${flightName}, ${when}`, description: `Seated tasting at ${venue.name}` },
+      },
+    }],
+    customer_email: booking.contactEmail,
+    client_reference_id: String(booking.id),
+    metadata,
+    payment_intent_data: { metadata, description: `Booking ${booking.reference}` },
+    expires_at: Math.ceil(expiresAtMs / 1000),
+    submit_type: 'book',
+    success_url: appLink(`/bookings/${booking.id}?paid=1`),
+    cancel_url: appLink(`/bookings/${booking.id}?paid=0`),
+  }, { idempotencyKey: `booking-${booking.id}-${booking.reference}-checkout` })
+  if (!checkout.url) throw new Error('the Checkout Session has no URL')
+  return checkout
+}
+
+/** Closes Checkout Sessions whose hold has ended, so nobody can pay for seats that are gone. */
+export async function expireCheckoutSessions(ids: string[]): Promise<void> {
+  for (const id of ids) {
+    try { await useStripe().checkout.sessions.expire(id) }
+    catch (err) {
+      if (!isFinalStripeError(err)) console.error(`[bookings] could not expire checkout ${id}:`, (err as Error).message)
+    }
+  }
+}
