@@ -29,7 +29,7 @@ if (!Object.groupBy) {
  */
 function registeredComponents() {
   const dts = readFileSync(new URL('./.nuxt/components.d.ts', import.meta.url), 'utf8')
-  return [...new Set([...dts.matchAll(/^export const (\w+):/gm)].map(m => m[1]))]
+  return [...new Set([...dts.matchAll(/^export const (\w+):/gm)].flatMap(m => (m[1] ? [m[1]] : [])))]
 }
 /** @param {string} name */
 const kebab = name => name.replace(/([a-z0-9])([A-Z])/g, '$1-$2').toLowerCase()
