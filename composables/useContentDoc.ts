@@ -18,6 +18,8 @@ export function useContentDoc(kind: ContentKind, subject: string) {
   )
 
   return {
+    /** Resolves once the document and its revisions are loaded (on the server, before rendering). */
+    ready: Promise.all([doc, revisions]).then(() => undefined),
     doc: doc.data,
     revisions: revisions.data,
     message,

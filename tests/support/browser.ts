@@ -10,13 +10,18 @@ const FLAGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', 
 
 export const SHOTS_DIR = resolve(import.meta.dirname, '../../test-results/screenshots')
 
-export async function openBrowser(viewport = { width: 1280, height: 900 }): Promise<{ context: BrowserContext, close: () => Promise<void> }> {
+/**
+ * `where` sets the browser's time zone and locale (IANA zone, BCP 47 tag); without it the browser
+ * takes the machine's, which is the server's too.
+ */
+export async function openBrowser(viewport = { width: 1280, height: 900 }, where: { timezoneId?: string, locale?: string } = {}): Promise<{ context: BrowserContext, close: () => Promise<void> }> {
   const profile = mkdtempSync(resolve(tmpdir(), 'larmoir-chromium-'))
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
     args: FLAGS,
     headless: true,
     viewport,
+    ...where,
     baseURL: inject('appUrl'),
   })
   // Fail a step within seconds, with the locator in the message, rather than at the test's timeout.

@@ -26,3 +26,10 @@ export async function setMailFault(mode: null | 'reject' | 'timeout'): Promise<v
   const res = await fetch(`${inject('mailUrl')}/__fake/fault`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ mode }) })
   if (res.status !== 200) throw new Error(`the mail fake refused the fault switch: ${res.status}`)
 }
+
+/** The whole `path?token=…` link in the e-mail, as its reader would open it. */
+export function linkUrl(mail: StoredMail, path: string): string {
+  const m = mail.text.match(new RegExp(`https?://[^\\s/]+${path.replace('/', '\\/')}\\?token=[\\w-]{43}`))
+  if (!m) throw new Error(`no ${path} link in the e-mail`)
+  return m[0]
+}
