@@ -38,7 +38,8 @@ describe('the host\'s day on a tablet', () => {
     await panel.getByRole('button', { name: 'Seat 2 walk-in guests' }).click()
     await panel.getByText('Walk-in couple').waitFor()
     await panel.getByRole('button', { name: 'Print all cards' }).click()
-    await panel.getByRole('link', { name: /Download 7 cards/ }).waitFor()
+    // Seven cards are made in the background; on a loaded machine that takes more than the default wait.
+    await panel.getByRole('link', { name: /Download 7 cards/ }).waitFor({ timeout: 45_000 })
     expect(await panel.getByText('Seated', { exact: true }).count()).toBe(1)
     await shot(page, 'host-day-after')
     await page.goto(`/cards/sessions/${sessionId}`)

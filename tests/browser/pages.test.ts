@@ -87,7 +87,7 @@ const PAGES: Record<string, PageRow> = {
   '/manage/bookings': { who: 'manager', main: p => p.getByRole('button', { name: 'Show', exact: true }) },
   '/manage/content': { who: 'marketing', main: (p, f) => p.locator(`a[href="/manage/content/product_note/${f.product}"]`) },
   '/manage/content/[kind]/[subject]': { who: 'marketing', params: f => ({ kind: 'product_note', subject: f.product }), main: p => p.getByLabel('Text (Markdown)') },
-  '/manage/flights': { who: 'marketing', main: p => p.getByRole('table', { name: 'Flights' }).getByRole('link', { name: FLIGHT_NAME }).first() },
+  '/manage/flights': { who: 'marketing', main: p => p.getByRole('table', { name: 'Flights' }).getByRole('link').first() },
   '/manage/flights/[id]': { who: 'manager', params: f => ({ id: f.flight }), main: p => p.getByRole('button', { name: 'Make a new version' }) },
   '/manage/flights/new': { who: 'manager', main: p => p.getByRole('button', { name: 'Save draft' }) },
   '/manage/glasses': { who: 'manager', main: p => p.getByRole('button', { name: 'Save glass' }).first() },

@@ -9,7 +9,7 @@ describe('errors in their current form (status, statusText, message)', () => {
     const res = await new Client().get('/api/sessions/999999999/availability')
     expect(res.status).toBe(404)
     expect(res.body).toMatchObject({ statusCode: 404, statusMessage: 'Not found', message: 'No such session.' })
-    const signedOut = await new Client().get('/api/host/day')
+    const signedOut = await new Client().get('/api/days/2026-12-02')
     expect(signedOut.status).toBe(401)
     expect(signedOut.body).toMatchObject({ statusCode: 401, statusMessage: 'Sign in first', message: 'Sign in to continue.' })
   })

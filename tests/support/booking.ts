@@ -84,19 +84,30 @@ export async function demoFlightId(): Promise<number> {
  * A fresh session of the demo flight starting `hoursAhead` from now (venue time, to the minute),
  * so a test owns every seat in it.
  */
+/**
+ * A session of the demo flight. A flight cannot start twice at the same instant (a unique index),
+ * and every test file adds sessions to the same database, so the start is spread: by default over
+ * a few days around nine days ahead; with `hoursAhead`, over the following hour, trying another
+ * minute when that one is taken.
+ */
 export async function newSession(manager: Client, opts: { hoursAhead?: number, seats?: number, priceMinor?: number, bookingCutoffMinutes?: number } = {}): Promise<{ id: number, startsAt: string }> {
-  const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ hours: opts.hoursAhead ?? 24 * 9, minutes: Math.floor(Math.random() * 50) })
-  const res = await manager.post('/api/sessions', {
-    flightId: await demoFlightId(),
-    startDate: start.toISODate(),
-    startTime: start.toFormat('HH:mm'),
-    durationMinutes: 75,
-    seats: opts.seats ?? 8,
-    priceMinor: opts.priceMinor ?? 3500,
-    bookingCutoffMinutes: opts.bookingCutoffMinutes ?? 60,
-  })
-  expect(res.status, JSON.stringify(res.body)).toBe(201)
-  return { id: res.body[0].id, startsAt: res.body[0].startsAt }
+  let res: Awaited<ReturnType<Client['post']>> | undefined
+  for (let attempt = 0; attempt < 12; attempt++) {
+    const hours = opts.hoursAhead ?? 24 * 9 + Math.floor(Math.random() * 96)
+    const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ hours, minutes: Math.floor(Math.random() * 50) })
+    res = await manager.post('/api/sessions', {
+      flightId: await demoFlightId(),
+      startDate: start.toISODate(),
+      startTime: start.toFormat('HH:mm'),
+      durationMinutes: 75,
+      seats: opts.seats ?? 8,
+      priceMinor: opts.priceMinor ?? 3500,
+      bookingCutoffMinutes: opts.bookingCutoffMinutes ?? 60,
+    })
+    if (res.status !== 409 && res.status !== 500) break
+  }
+  expect(res!.status, JSON.stringify(res!.body)).toBe(201)
+  return { id: res!.body[0].id, startsAt: res!.body[0].startsAt }
 }
 
 export function bookingBody(sessionId: number, guest: { email: string, name: string, dateOfBirth: string }, partySize = 2) {
