@@ -1,3 +1,4 @@
+import { formatCalendarDay } from '#shared/dates'
 import type { MeasurementInput } from '#shared/schemas/products'
 import type { ProductView } from '#shared/types/products'
 import { formatVolume, toDisplayTemp } from '#shared/pours'
@@ -62,6 +63,6 @@ export function useProductFormat() {
     grams: (v: number) => v.toFixed(1),
     index: (v: number) => v.toFixed(1),
     /** A calendar date (YYYY-MM-DD) read as a date, not an instant, so no zone can shift it. */
-    day: (iso: string) => new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`)),
+    day: (iso: string) => formatCalendarDay(iso, { timeZone: venue.value?.timeZone ?? 'UTC', locale: venue.value?.locale ?? 'en-US' }),
   }
 }

@@ -1,27 +1,30 @@
+import { formatDay, formatDayTime, formatDuration, formatLongDay, formatTime, formatWhen, formatZoneName, type VenueClock } from '#shared/dates'
+
 /**
- * Session times for guests, always in the venue's zone (named, so a visitor from elsewhere is not
- * misled), and amounts in the venue's currency. Built on useVenueFormat's Intl formatting.
+ * Session times for staff and guests alike, always in the venue's zone and locale (shared/dates.ts:
+ * the year only when it is not this year; the zone named where a visitor could misread it), and
+ * amounts in the venue's currency.
  */
 export function useSessionFormat() {
   const { data: venue } = useVenue()
   const base = useVenueFormat()
-  const zone = () => venue.value?.timeZone ?? 'UTC'
-  const fmt = (iso: string | Date, opts: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat('en-US', { ...opts, timeZone: zone() }).format(new Date(iso))
-  const zoneName = (iso: string | Date) => new Intl.DateTimeFormat('en-US', { timeZone: zone(), timeZoneName: 'short' }).formatToParts(new Date(iso)).find(p => p.type === 'timeZoneName')?.value ?? zone()
+  const clock = (): VenueClock => ({ timeZone: venue.value?.timeZone ?? 'UTC', locale: venue.value?.locale ?? 'en-US' })
   return {
     money: base.money,
     dateTime: base.dateTime,
-    /** "Dec 3, 2026, 6:30 PM EST": an instant with the venue's zone named. */
-    when: (iso: string | Date) => `${base.dateTime(iso)} ${zoneName(iso)}`,
-    /** "Sat, Oct 3" */
-    day: (iso: string | Date) => fmt(iso, { weekday: 'short', month: 'short', day: 'numeric' }),
-    /** "2:00 PM" */
-    time: (iso: string | Date) => fmt(iso, { hour: 'numeric', minute: '2-digit' }),
-    /** "Saturday, October 3, 2026" */
-    longDay: (iso: string | Date) => fmt(iso, { dateStyle: 'full' }),
-    /** "EDT" */
-    zoneName,
+    /** "Sat, Dec 5, 6:30 PM EST": an instant with the venue's zone named. */
+    when: (iso: string | Date) => formatWhen(iso, clock()),
+    /** "Sat, Dec 5" (the year added in another year) */
+    day: (iso: string | Date) => formatDay(iso, clock()),
+    /** "2:00 PM" or "14:00", as the venue's locale writes it */
+    time: (iso: string | Date) => formatTime(iso, clock()),
+    /** "Saturday, December 5, 2026" */
+    longDay: (iso: string | Date) => formatLongDay(iso, clock()),
+    /** "EST" */
+    zoneName: (iso: string | Date) => formatZoneName(iso, clock()),
     /** "2 h 15 min" */
-    duration: (minutes: number) => (minutes >= 60 ? `${Math.floor(minutes / 60)} h${minutes % 60 ? ` ${minutes % 60} min` : ''}` : `${minutes} min`),
+    duration: formatDuration,
+    /** "Sat, Dec 5, 2:00 PM" */
+    dayTime: (iso: string | Date) => formatDayTime(iso, clock()),
   }
 }

@@ -1,7 +1,7 @@
 import { expect, inject } from 'vitest'
 import { DateTime } from 'luxon'
 import Stripe from 'stripe'
-import { Client, uniqueEmail } from './http'
+import { Client, uniqueEmail, type Reply } from './http'
 import { withDb } from './db'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
 import { LOCAL_STRIPE_SECRET_KEY } from '../../scripts/lib/stack'
@@ -91,7 +91,7 @@ export async function demoFlightId(): Promise<number> {
  * minute when that one is taken.
  */
 export async function newSession(manager: Client, opts: { hoursAhead?: number, seats?: number, priceMinor?: number, bookingCutoffMinutes?: number } = {}): Promise<{ id: number, startsAt: string }> {
-  let res: Awaited<ReturnType<Client['post']>> | undefined
+  let res: Reply | undefined
   for (let attempt = 0; attempt < 12; attempt++) {
     const hours = opts.hoursAhead ?? 24 * 9 + Math.floor(Math.random() * 96)
     const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ hours, minutes: Math.floor(Math.random() * 50) })
