@@ -81,13 +81,13 @@ export async function demoFlightId(): Promise<number> {
 }
 
 /**
- * A fresh session of the demo flight starting `hoursAhead` from now (venue time, to the minute),
- * so a test owns every seat in it.
+ * A fresh session of the demo flight (or `flightId`) starting `hoursAhead` from now (venue time, to
+ * the minute), so a test owns every seat in it.
  */
-export async function newSession(manager: Client, opts: { hoursAhead?: number, seats?: number, priceMinor?: number, bookingCutoffMinutes?: number } = {}): Promise<{ id: number, startsAt: string }> {
+export async function newSession(manager: Client, opts: { hoursAhead?: number, seats?: number, priceMinor?: number, bookingCutoffMinutes?: number, flightId?: number } = {}): Promise<{ id: number, startsAt: string }> {
   const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ hours: opts.hoursAhead ?? 24 * 9, minutes: Math.floor(Math.random() * 50) })
   const res = await manager.post('/api/sessions', {
-    flightId: await demoFlightId(),
+    flightId: opts.flightId ?? await demoFlightId(),
     startDate: start.toISODate(),
     startTime: start.toFormat('HH:mm'),
     durationMinutes: 75,
