@@ -49,6 +49,9 @@ export default withNuxt(
       // Form sections receive the form's reactive values object and bind inputs to its fields;
       // replacing the prop itself stays forbidden.
       'vue/no-mutating-props': ['error', { shallowOnly: true }],
+      // The pages' content security policy runs no inline script, so an onclick="…" attribute
+      // silently does nothing: bind handlers with @click instead.
+      'vue/no-restricted-static-attribute': ['error', { key: '/^on[a-z]+$/i', message: 'Inline event handlers are blocked by the content security policy: use @event="…".' }],
     },
   },
   {

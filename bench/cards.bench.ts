@@ -14,6 +14,7 @@ const fonts = {
   regular: readFileSync(resolve(fontDir, 'lora-latin-400-normal.woff')),
   semibold: readFileSync(resolve(fontDir, 'lora-latin-600-normal.woff')),
   italic: readFileSync(resolve(fontDir, 'lora-latin-400-italic.woff')),
+  semiboldItalic: readFileSync(resolve(fontDir, 'lora-latin-600-italic.woff')),
 }
 const glass = { name: 'Tulip wine glass', bowlDiameterMm: 84, wallAngleDeg: 78, fillHeightMm: 38 }
 const invented = [

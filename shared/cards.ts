@@ -8,6 +8,7 @@ import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
 import type { GlassShape } from './glassDiagram'
 import type { FlightCard } from './types/cards'
+import type { RenderedText } from './types/content'
 
 export interface CardVenue {
   name: string
@@ -34,7 +35,7 @@ export interface CardPourInput {
   filmActivityIndex: number
   film: FilmResult
   /** The product's published tasting note. */
-  tastingNote?: { html: string, text: string } | null
+  tastingNote?: RenderedText | null
 }
 
 export interface CardFlightInput {
@@ -44,8 +45,37 @@ export interface CardFlightInput {
   summary: string
   pours: CardPourInput[]
   totals: { ethanolGrams: number, standardDrinks: number, volumeMl: number }
-  intro?: { html: string, text: string } | null
+  /** Marketing's published introduction. */
+  intro?: RenderedText | null
 }
+
+/** The papers a card prints on. */
+export const CARD_PAPERS = ['a5', 'half-letter'] as const
+export type CardPaper = (typeof CARD_PAPERS)[number]
+/**
+ * Page sizes in PDF points (1/72 in): A5 is 148 × 210 mm (ISO 216), US half letter 5.5 × 8.5 in
+ * (ANSI/ASME Y14.1). The print page sets the same sizes in CSS points, so both print alike.
+ */
+export const CARD_PAPER_POINTS: Record<CardPaper, { width: number, height: number, label: string, css: string }> = {
+  'a5': { width: 419.53, height: 595.28, label: 'A5', css: 'A5' },
+  'half-letter': { width: 396, height: 612, label: 'US half letter', css: '5.5in 8.5in' },
+}
+/** The card's margin on every side, points (the PDF's page margin and the print page's @page margin). */
+export const CARD_MARGIN_PT = 22
+
+/**
+ * How a card is fitted to its page, tried in order until it fits (both the PDF and the print page
+ * walk this list): the type scale, and whether a note's lists run on ("• pear  • quince") instead of
+ * one item a line. Past the last step the card flows onto a second page.
+ */
+export interface CardFit { scale: number, compactLists: boolean }
+export const CARD_FIT_STEPS: readonly CardFit[] = [
+  { scale: 1, compactLists: false },
+  { scale: 0.95, compactLists: false },
+  { scale: 0.95, compactLists: true },
+  { scale: 0.9, compactLists: true },
+  { scale: 0.86, compactLists: true },
+]
 
 const ALLERGEN_LABELS: Record<Allergen, string> = {
   sulfites: 'sulfites', gluten: 'gluten', milk: 'milk', egg: 'egg', fish: 'fish', nuts: 'tree nuts', soy: 'soy', celery: 'celery',
@@ -80,7 +110,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       glass: p.glass,
       prediction: p.film.predictions,
       lookFor,
-      tastingNote: p.tastingNote?.text ?? null,
+      tastingNote: p.tastingNote ?? null,
       allergens: p.product.allergens.map(a => ALLERGEN_LABELS[a]),
       pourUrl: `${opts.publicUrl}/${p.position}`,
     }
@@ -88,6 +118,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
   return {
     venue: { name: venue.name, address: venue.address, legalAge: venue.legalAge },
     flight: { id: flight.id, name: flight.name, version: flight.version, summary: flight.summary },
+    intro: flight.intro ?? null,
     guestName: opts.guestName ?? null,
     sessionLabel: opts.sessionLabel ?? null,
     pours,

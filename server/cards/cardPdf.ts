@@ -1,34 +1,38 @@
 /**
  * Flight cards as PDF, made with pdfkit and the Lora font shipped with the app (embedded from its
- * .woff files; nothing is fetched at run time). A card of up to six pours fits one A5 or half-letter
- * page; longer ones (or long tasting notes) flow onto a second. Pure: fonts come in as bytes.
+ * .woff files; nothing is fetched at run time). A card of up to six pours, with the flight's
+ * introduction and each pour's tasting note, fits one A5 or half-letter page: when the text runs
+ * long the card walks CARD_FIT_STEPS (shared/cards.ts: slightly smaller type, then run-on lists)
+ * before anything flows onto a second page. Notes keep their Markdown structure (shared/markdown.ts blocks, laid out by
+ * pdfText.ts). Pure: fonts come in as bytes.
  */
 import PDFDocument from 'pdfkit'
 import QRCode from 'qrcode'
 import { glassDiagramGeometry } from '../../shared/glassDiagram'
+import { CARD_FIT_STEPS, CARD_MARGIN_PT, CARD_PAPER_POINTS, type CardFit, type CardPaper } from '../../shared/cards'
 import type { FlightCard } from '../../shared/types/cards'
+import type { TextBlock } from '../../shared/types/content'
+import { FACES, drawRich, layoutRich } from './pdfText'
 
-export type CardPaper = 'a5' | 'half-letter'
-/** A5 is 148 × 210 mm; US half letter is 5.5 × 8.5 in (ISO 216; ANSI/ASME Y14.1), in PDF points. */
-const PAPER_POINTS: Record<CardPaper, [number, number]> = { 'a5': [419.53, 595.28], 'half-letter': [396, 612] }
-export interface CardFonts { regular: Buffer, semibold: Buffer, italic: Buffer }
+export interface CardFonts { regular: Buffer, semibold: Buffer, italic: Buffer, semiboldItalic: Buffer }
 
 const INK = '#1e2326'
 const SOFT = '#4a5459'
 const FAINT = '#7b868c'
 const AMBER = '#c98a2b'
 const LAGOON = '#25665f'
-const MARGIN = 22
+const MARGIN = CARD_MARGIN_PT
 const GLASS_COL = 34
 const QR = 54
 const GAP = 5
 
 export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPaper, fonts: CardFonts, title?: string, onCard?: (done: number, total: number) => void }): Promise<Buffer> {
-  const [width, height] = PAPER_POINTS[opts.paper]
+  const { width, height } = CARD_PAPER_POINTS[opts.paper]
   const doc = new PDFDocument({ size: [width, height], margin: MARGIN, autoFirstPage: false, info: { Title: opts.title ?? cards[0]?.flight.name ?? 'Flight cards', Creator: 'Larmoir' } })
-  doc.registerFont('Lora', opts.fonts.regular)
-  doc.registerFont('Lora-SemiBold', opts.fonts.semibold)
-  doc.registerFont('Lora-Italic', opts.fonts.italic)
+  doc.registerFont(FACES.regular, opts.fonts.regular)
+  doc.registerFont(FACES.bold, opts.fonts.semibold)
+  doc.registerFont(FACES.italic, opts.fonts.italic)
+  doc.registerFont(FACES.boldItalic, opts.fonts.semiboldItalic)
   const chunks: Buffer[] = []
   doc.on('data', (c: Buffer) => chunks.push(c))
   const done = new Promise<Buffer>(resolve => doc.on('end', () => resolve(Buffer.concat(chunks))))
@@ -51,56 +55,121 @@ export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPap
 
 type Pour = FlightCard['pours'][number]
 
+/** A piece of the card: plain text in one font (pdfkit wraps it), or a note's blocks (pdfText.ts). */
+type Line = { font: string, size: number, color: string, text: string, gap: number, spacing?: number }
+  | { blocks: TextBlock[], size: number, color: string, gap: number, compact: boolean, rule?: true }
+
+/** A note's look: ink, not the soft grey of the fine print, a touch larger than the pour's lines. */
+const note = (blocks: TextBlock[], fit: CardFit): Line => ({ blocks, size: 7.2 * fit.scale, color: INK, gap: 2.5 * fit.scale, compact: fit.compactLists, rule: true })
+
 /**
  * Each piece of text with its font and size, in drawing order, so that measuring a block and
  * drawing it cannot disagree.
  */
-function pourLines(pour: Pour): { font: string, size: number, color: string, text: string, gap: number }[] {
+function pourLines(pour: Pour, fit: CardFit): Line[] {
+  const k = fit.scale
   const detail = [pour.kind, pour.vintageOrBatch, pour.abvText, `${pour.volumeText} at ${pour.servedAtText}`,
     `${pour.ethanolGrams.toFixed(1)} g ethanol = ${pour.standardDrinks.toFixed(2)} standard drinks`].filter(Boolean).join(' · ')
+  // The allergens close the facts line, in bold, rather than taking a line of their own.
+  const facts: TextBlock = { kind: 'paragraph', depth: 0, runs: [{ text: detail }, ...(pour.allergens.length ? [{ text: ' · ' }, { text: `Contains ${pour.allergens.join(', ')}.`, bold: true as const }] : [])] }
   return [
-    { font: 'Lora', size: 6.6, color: SOFT, text: detail, gap: 0.5 },
-    { font: 'Lora', size: 6.7, color: INK, text: pour.lookFor.join(' '), gap: 1.5 },
-    ...(pour.tastingNote ? [{ font: 'Lora-Italic', size: 7, color: SOFT, text: pour.tastingNote, gap: 1.5 }] : []),
-    ...(pour.allergens.length ? [{ font: 'Lora-SemiBold', size: 6.2, color: SOFT, text: `Contains ${pour.allergens.join(', ')}.`, gap: 0.5 }] : []),
+    { blocks: [facts], size: 6.6 * k, color: SOFT, gap: 0.5, compact: false },
+    { font: FACES.regular, size: 6.7 * k, color: INK, text: pour.lookFor.join(' '), gap: 1.5 * k },
+    ...(pour.tastingNote?.blocks.length ? [note(pour.tastingNote.blocks, fit)] : []),
   ]
 }
 
-function footLines(card: FlightCard): { font: string, size: number, color: string, text: string, gap: number }[] {
+function headerLines(card: FlightCard, fit: CardFit): Line[] {
+  const k = fit.scale
+  const sub = [card.guestName ? `Poured for ${card.guestName}` : null, card.sessionLabel].filter(Boolean).join(' · ')
   return [
-    { font: 'Lora-SemiBold', size: 8.5, color: INK, text: `This flight: ${card.totals.standardDrinks.toFixed(1)} standard drinks — ${card.totals.ethanolGrams.toFixed(1)} g of ethanol in ${card.totals.volumeText} (${card.totals.definition}).`, gap: 0 },
-    { font: 'Lora', size: 6.5, color: SOFT, text: card.why, gap: 3 },
-    { font: 'Lora-Italic', size: 6.5, color: SOFT, text: card.quality, gap: 1.5 },
-    { font: 'Lora', size: 6.5, color: INK, text: card.cautions.join(' '), gap: 3 },
+    { font: FACES.regular, size: 7.5, color: LAGOON, text: card.venue.name.toUpperCase(), gap: 0, spacing: 0.8 },
+    { font: FACES.bold, size: 15, color: INK, text: card.flight.name, gap: 1 },
+    ...(sub ? [{ font: FACES.italic, size: 8.5, color: SOFT, text: sub, gap: 1 }] : []),
+    ...(card.flight.summary ? [{ font: FACES.regular, size: 7.5 * k, color: SOFT, text: card.flight.summary, gap: 1 }] : []),
+    ...(card.intro?.blocks.length ? [{ blocks: card.intro.blocks, size: 7.6 * k, color: INK, gap: 3 * k, compact: fit.compactLists }] : []),
   ]
 }
 
-function measure(doc: PDFKit.PDFDocument, lines: ReturnType<typeof pourLines>, width: number): number {
-  return lines.reduce((h, l) => h + l.gap + doc.font(l.font).fontSize(l.size).heightOfString(l.text, { width }), 0)
+function footLines(card: FlightCard): Line[] {
+  return [
+    { font: FACES.bold, size: 8.5, color: INK, text: `This flight: ${card.totals.standardDrinks.toFixed(1)} standard drinks — ${card.totals.ethanolGrams.toFixed(1)} g of ethanol in ${card.totals.volumeText} (${card.totals.definition}).`, gap: 0 },
+    { font: FACES.regular, size: 6.5, color: SOFT, text: card.why, gap: 3 },
+    { font: FACES.italic, size: 6.5, color: SOFT, text: card.quality, gap: 1.5 },
+    { font: FACES.regular, size: 6.5, color: INK, text: card.cautions.join(' '), gap: 3 },
+  ]
 }
 
-function draw(doc: PDFKit.PDFDocument, lines: ReturnType<typeof pourLines>, x: number, y: number, width: number): number {
+/** A note's indent: the rule beside it, and the list markers. */
+const NOTE_INSET = 5
+const richStyle = (l: Extract<Line, { blocks: TextBlock[] }>) => ({ size: l.size, leading: LEADING, color: l.color, linkColor: LAGOON, blockGap: l.size * 0.25, indent: l.size * 1.3, compactLists: l.compact })
+const richLayout = (doc: PDFKit.PDFDocument, l: Extract<Line, { blocks: TextBlock[] }>, width: number) => layoutRich(doc, l.blocks, width - (l.rule ? NOTE_INSET : 0), richStyle(l))
+
+/**
+ * Line spacing of the card's text, × the type size: tighter than Lora's own 1.28 (its ascent plus
+ * descent), which is made for screens and long reading; a card is a few lines at a time.
+ */
+const LEADING = 1.17
+const plainOptions = (doc: PDFKit.PDFDocument, l: Extract<Line, { text: string }>, width: number) =>
+  ({ width, characterSpacing: l.spacing, lineGap: LEADING * l.size - doc.font(l.font).fontSize(l.size).currentLineHeight(true) })
+
+function measure(doc: PDFKit.PDFDocument, lines: Line[], width: number): number {
+  return lines.reduce((h, l) => h + l.gap + ('blocks' in l
+    ? richLayout(doc, l, width).height
+    : doc.font(l.font).fontSize(l.size).heightOfString(l.text, plainOptions(doc, l, width))), 0)
+}
+
+function draw(doc: PDFKit.PDFDocument, lines: Line[], x: number, y: number, width: number): number {
   for (const l of lines) {
-    doc.font(l.font).fontSize(l.size).fillColor(l.color).text(l.text, x, y + l.gap, { width })
-    y = doc.y
+    y += l.gap
+    if ('blocks' in l) {
+      const laid = richLayout(doc, l, width)
+      const inset = l.rule ? NOTE_INSET : 0
+      if (l.rule) doc.moveTo(x + 0.6, y + 1).lineTo(x + 0.6, y + laid.height - 1).lineWidth(1.2).strokeColor(AMBER).stroke()
+      drawRich(doc, laid, x + inset, y)
+      y += laid.height
+    }
+    else {
+      doc.font(l.font).fontSize(l.size).fillColor(l.color).text(l.text, x, y, plainOptions(doc, l, width))
+      y = doc.y
+    }
   }
   return y
 }
 
 const TITLE_H = 12
+/** Space under the header's text, then the rule, then space above the first pour. */
+const HEADER_RULE = 5
+const HEADER_AFTER = 7
+
+interface Geometry { inner: number, textX: number, textW: number, footW: number, footH: number }
+
+function blockHeight(doc: PDFKit.PDFDocument, pour: Pour, g: Geometry, fit: CardFit): number {
+  return Math.max(TITLE_H + measure(doc, pourLines(pour, fit), g.textW), GLASS_COL * 1.05)
+}
+
+/** The first step of CARD_FIT_STEPS at which the whole card fits its page (else the last one). */
+function fitCard(doc: PDFKit.PDFDocument, card: FlightCard, g: Geometry, height: number): CardFit {
+  const steps = CARD_FIT_STEPS
+  return steps.find((fit) => {
+    const total = MARGIN + measure(doc, headerLines(card, fit), g.inner) + HEADER_RULE + HEADER_AFTER
+      + card.pours.reduce((h, p) => h + blockHeight(doc, p, g, fit) + GAP, 0)
+    return total <= height - MARGIN - g.footH
+  }) ?? steps.at(-1)!
+}
 
 function drawCard(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, width: number, height: number) {
   const inner = width - 2 * MARGIN
-  const textX = MARGIN + GLASS_COL + 8
-  const textW = inner - GLASS_COL - 8
   const footW = inner - QR - 10
-  const footH = Math.max(measure(doc, footLines(card), footW), QR + 10) + 10
+  const g: Geometry = { inner, textX: MARGIN + GLASS_COL + 8, textW: inner - GLASS_COL - 8, footW, footH: Math.max(measure(doc, footLines(card), footW), QR + 10) + 10 }
+  const { textX, textW, footH } = g
+  const fit = fitCard(doc, card, g, height)
   doc.addPage()
-  let y = header(doc, card, inner)
+  let y = header(doc, card, inner, fit)
 
   for (const pour of card.pours) {
-    const lines = pourLines(pour)
-    const blockH = Math.max(TITLE_H + measure(doc, lines, textW), GLASS_COL * 1.05)
+    const lines = pourLines(pour, fit)
+    const blockH = blockHeight(doc, pour, g, fit)
     if (y + blockH > height - MARGIN - footH && y + blockH > height - MARGIN) {
       doc.addPage()
       y = MARGIN
@@ -109,8 +178,8 @@ function drawCard(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, width: 
       // It fits on the page but not above the foot: keep it, and the foot goes on the next page.
     }
     drawGlass(doc, pour, MARGIN, y, GLASS_COL)
-    doc.font('Lora-SemiBold').fontSize(10).fillColor(INK).text(`${pour.position}  ${pour.name}`, textX, y, { width: textW - 84, lineBreak: false, ellipsis: true, continued: true })
-      .font('Lora').fontSize(6.8).fillColor(SOFT).text(`   ${pour.producer}`, { lineBreak: false, ellipsis: true })
+    doc.font(FACES.bold).fontSize(10).fillColor(INK).text(`${pour.position}  ${pour.name}`, textX, y, { width: textW - 84, lineBreak: false, ellipsis: true, continued: true })
+      .font(FACES.regular).fontSize(6.8).fillColor(SOFT).text(`   ${pour.producer}`, { lineBreak: false, ellipsis: true })
     meter(doc, pour.filmActivityIndex, textX + textW - 76, y + 1)
     const end = draw(doc, lines, textX, y + TITLE_H, textW)
     y = Math.max(end, y + GLASS_COL * 1.05) + GAP
@@ -125,27 +194,22 @@ function drawCard(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, width: 
 
 /** "film activity 8.3" and a 0–10 bar, at the right of a pour's title. */
 function meter(doc: PDFKit.PDFDocument, value: number, x: number, y: number) {
-  doc.font('Lora').fontSize(6.5).fillColor(SOFT).text(`film activity ${value.toFixed(1)}`, x - 6, y + 1, { width: 56, align: 'right', lineBreak: false })
+  doc.font(FACES.regular).fontSize(6.5).fillColor(SOFT).text(`film activity ${value.toFixed(1)}`, x - 6, y + 1, { width: 56, align: 'right', lineBreak: false })
   doc.roundedRect(x + 53, y + 3.2, 23, 2.6, 1.3).fill('#fbefd9')
   doc.roundedRect(x + 53, y + 3.2, Math.max(1, 2.3 * Math.min(10, value)), 2.6, 1.3).fill(AMBER)
 }
 
-function header(doc: PDFKit.PDFDocument, card: FlightCard, inner: number): number {
-  doc.font('Lora').fontSize(7.5).fillColor(LAGOON).text(card.venue.name.toUpperCase(), MARGIN, MARGIN, { width: inner, characterSpacing: 0.8 })
-  doc.font('Lora-SemiBold').fontSize(15).fillColor(INK).text(card.flight.name, MARGIN, doc.y + 1, { width: inner })
-  const sub = [card.guestName ? `Poured for ${card.guestName}` : null, card.sessionLabel].filter(Boolean).join(' · ')
-  if (sub) doc.font('Lora-Italic').fontSize(8.5).fillColor(SOFT).text(sub, MARGIN, doc.y + 1, { width: inner })
-  if (card.flight.summary) doc.font('Lora').fontSize(7.5).fillColor(SOFT).text(card.flight.summary, MARGIN, doc.y + 1, { width: inner })
-  const y = doc.y + 5
+function header(doc: PDFKit.PDFDocument, card: FlightCard, inner: number, fit: CardFit): number {
+  const y = draw(doc, headerLines(card, fit), MARGIN, MARGIN, inner) + HEADER_RULE
   doc.moveTo(MARGIN, y).lineTo(MARGIN + inner, y).lineWidth(0.5).strokeColor('#e3ddd2').stroke()
-  return y + 7
+  return y + HEADER_AFTER
 }
 
 function foot(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, inner: number, footW: number, top: number) {
   doc.moveTo(MARGIN, top).lineTo(MARGIN + inner, top).lineWidth(0.5).strokeColor('#e3ddd2').stroke()
   draw(doc, footLines(card), MARGIN, top + 6, footW)
   doc.image(qr, MARGIN + inner - QR, top + 6, { width: QR, height: QR })
-  doc.font('Lora').fontSize(5.5).fillColor(FAINT).text('Scan: the glass explained', MARGIN + inner - QR - 8, top + 7 + QR, { width: QR + 16, align: 'center' })
+  doc.font(FACES.regular).fontSize(5.5).fillColor(FAINT).text('Scan: the glass explained', MARGIN + inner - QR - 8, top + 7 + QR, { width: QR + 16, align: 'center' })
 }
 
 /** The same glass diagram as the web pages, drawn as vectors at `size` points wide. */

@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto'
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import { DateTime } from 'luxon'
-import { renderCardsPdf, type CardFonts, type CardPaper } from '../cards/cardPdf'
-import { buildFlightCard } from '../../shared/cards'
+import { renderCardsPdf, type CardFonts } from '../cards/cardPdf'
+import { buildFlightCard, type CardPaper } from '../../shared/cards'
 import type { FlightCard } from '../../shared/types/cards'
 import type { Venue } from '../db/schema/venues'
 import type { TastingSession } from '../db/schema/sessions'
@@ -22,6 +22,7 @@ export function cardFonts(): Promise<CardFonts> {
       regular: await read('lora-latin-400-normal.woff'),
       semibold: await read('lora-latin-600-normal.woff'),
       italic: await read('lora-latin-400-italic.woff'),
+      semiboldItalic: await read('lora-latin-600-italic.woff'),
     }
   })()
   return fonts

@@ -2,7 +2,7 @@ import { and, desc, eq, inArray, isNull } from 'drizzle-orm'
 import type { H3Event } from 'h3'
 import type { ContentKind } from '../../shared/content'
 import type { ContentDoc } from '../db/schema/content'
-import { markdownToText, renderMarkdown } from '../../shared/markdown'
+import { renderNote } from '../../shared/markdown'
 import { contentParams } from '../../shared/schemas/content'
 import type { ContentDocView, ContentRevision, RenderedText } from '../../shared/types/content'
 
@@ -102,12 +102,12 @@ export async function writeDoc(tx: Tx, venueId: number, kind: ContentKind, subje
   return doc.id
 }
 
-/** Published notes for products or flights, as HTML and plain text, for guests and cards. */
+/** Published notes for products or flights, rendered once (HTML, structure, text) for guests and cards. */
 export async function publishedNotes(venueId: number, kind: 'product_note' | 'flight_intro', ids: number[]): Promise<Map<number, RenderedText>> {
   if (!ids.length) return new Map()
   const rows = await useDb().select({ subjectId: tables.contentDocs.subjectId, body: tables.contentDocs.publishedBody }).from(tables.contentDocs)
     .where(and(eq(tables.contentDocs.venueId, venueId), eq(tables.contentDocs.kind, kind), eq(tables.contentDocs.status, 'published'), inArray(tables.contentDocs.subjectId, ids)))
-  return new Map(rows.filter(r => r.subjectId !== null && r.body).map(r => [r.subjectId!, { html: renderMarkdown(r.body!), text: markdownToText(r.body!) }]))
+  return new Map(rows.filter(r => r.subjectId !== null && r.body).map(r => [r.subjectId!, renderNote(r.body!)]))
 }
 
 export async function revisionsOf(docId: number): Promise<ContentRevision[]> {

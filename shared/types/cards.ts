@@ -1,5 +1,6 @@
 import type { GlassShape } from '../glassDiagram'
 import type { TearPrediction } from '../science'
+import type { ImageView, RenderedText } from './content'
 
 /** One pour's lines on a flight card. */
 export interface CardPour {
@@ -17,7 +18,8 @@ export interface CardPour {
   glass: GlassShape
   prediction: TearPrediction
   lookFor: string[]
-  tastingNote: string | null
+  /** The product's published tasting note: HTML for the print page, blocks for the PDF. */
+  tastingNote: RenderedText | null
   allergens: string[]
   pourUrl: string
 }
@@ -29,6 +31,8 @@ export interface CardPour {
 export interface FlightCard {
   venue: { name: string, address: string, legalAge: number }
   flight: { id: number, name: string, version: number, summary: string }
+  /** Marketing's published introduction to the flight. */
+  intro: RenderedText | null
   guestName: string | null
   sessionLabel: string | null
   pours: CardPour[]
@@ -46,7 +50,10 @@ export interface SessionCards { sessionId: number, cards: FlightCard[] }
 export interface PourPage {
   venue: { name: string, temperatureUnit: 'c' | 'f' }
   flight: { id: number, name: string, pourCount: number }
+  /** The flight's published introduction. */
+  intro: RenderedText | null
   pour: CardPour
+  photo: ImageView | null
   description: string[]
   servingTempC: number
   residualSugarGL: number

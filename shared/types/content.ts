@@ -1,7 +1,19 @@
 import type { ContentStatus, ImageRole } from '../content'
 
-/** Markdown rendered once on the server: sanitised HTML and its plain text. */
-export interface RenderedText { html: string, text: string }
+/** A stretch of a note's text in one style. */
+export interface TextRun { text: string, bold?: true, italic?: true, code?: true, href?: string }
+
+/**
+ * One block of a note as the card PDF lays it out: a paragraph, a heading or a list item (with its
+ * marker, "•" or "2."); `depth` is how many lists it sits in, `quote` that it is quoted.
+ */
+export interface TextBlock { kind: 'paragraph' | 'heading' | 'item', runs: TextRun[], depth: number, marker?: string, quote?: true }
+
+/**
+ * Markdown rendered once on the server (shared/markdown.ts, the one renderer): the HTML every page
+ * shows, the same text's structure for the PDF, and its plain text.
+ */
+export interface RenderedText { html: string, text: string, blocks: TextBlock[] }
 
 /** An uploaded image (GET /api/images, and each product's photo on flight views). */
 export interface ImageView {

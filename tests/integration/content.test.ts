@@ -44,7 +44,10 @@ describe('tasting notes', () => {
     expect(html).not.toMatch(/href\s*=\s*["']?\s*javascript:/i) // no javascript: link
     expect(html).toContain('&lt;script&gt;')
     const card = (await manager.get(`/api/flights/${flightId}/card`)).body
-    expect(card.pours.find((p: { name: string }) => p.name === 'Tidewater Albariño').tastingNote).toMatch(/^Salt and stone .*quince/)
+    // The card carries the same rendering as the guest pages (HTML for the print page, blocks for the PDF).
+    const cardNote = card.pours.find((p: { name: string }) => p.name === 'Tidewater Albariño').tastingNote
+    expect(cardNote.html).toBe(html)
+    expect(cardNote.text).toMatch(/^Salt and stone\n[\s\S]*quince/)
 
     // A later draft does not replace what guests see until it is published.
     await marketing.request('PUT', `/api/content/product_note/${productId}`, { body: 'Unreleased words' })

@@ -81,8 +81,8 @@ export async function demoFlightId(): Promise<number> {
 }
 
 /**
- * A fresh session of the demo flight starting `hoursAhead` from now (venue time, to the minute),
- * so a test owns every seat in it.
+ * A fresh session of the demo flight (or `flightId`) starting `hoursAhead` from now (venue time, to
+ * the minute), so a test owns every seat in it.
  */
 /**
  * A session of the demo flight. A flight cannot start twice at the same instant (a unique index),
@@ -90,13 +90,13 @@ export async function demoFlightId(): Promise<number> {
  * a few days around nine days ahead; with `hoursAhead`, over the following hour, trying another
  * minute when that one is taken.
  */
-export async function newSession(manager: Client, opts: { hoursAhead?: number, seats?: number, priceMinor?: number, bookingCutoffMinutes?: number } = {}): Promise<{ id: number, startsAt: string }> {
+export async function newSession(manager: Client, opts: { hoursAhead?: number, seats?: number, priceMinor?: number, bookingCutoffMinutes?: number, flightId?: number } = {}): Promise<{ id: number, startsAt: string }> {
   let res: Reply | undefined
   for (let attempt = 0; attempt < 12; attempt++) {
     const hours = opts.hoursAhead ?? 24 * 9 + Math.floor(Math.random() * 96)
     const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ hours, minutes: Math.floor(Math.random() * 50) })
     res = await manager.post('/api/sessions', {
-      flightId: await demoFlightId(),
+      flightId: opts.flightId ?? await demoFlightId(),
       startDate: start.toISODate(),
       startTime: start.toFormat('HH:mm'),
       durationMinutes: 75,

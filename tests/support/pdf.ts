@@ -19,3 +19,24 @@ export function inspectPdf(bytes: Buffer, pngName?: string) {
   if (pngName) execFileSync('pdftoppm', ['-png', '-r', '110', '-f', '1', '-l', '1', '-singlefile', file, resolve(SHOTS_DIR, pngName)])
   return { pages, width: Number(size?.[1]), height: Number(size?.[2]), fonts, text, pageText }
 }
+
+/** A stretch of a PDF's text with the font it is set in (poppler's pdftohtml -xml), page by page. */
+export interface PdfRun { page: number, text: string, family: string, size: number, color: string }
+
+export function pdfRuns(bytes: Buffer): PdfRun[] {
+  const dir = mkdtempSync(resolve(tmpdir(), 'larmoir-pdf-'))
+  const file = resolve(dir, 'card.pdf')
+  writeFileSync(file, bytes)
+  const xml = execFileSync('pdftohtml', ['-xml', '-i', '-stdout', file], { encoding: 'utf8' })
+  const fonts = new Map([...xml.matchAll(/<fontspec id="(\d+)" size="([\d.]+)" family="([^"]+)" color="([^"]+)"/g)].map(m => [m[1]!, { size: Number(m[2]), family: m[3]!.replace(/^[A-Z]{6}\+/, ''), color: m[4]! }]))
+  const runs: PdfRun[] = []
+  for (const page of xml.split(/<page number="/).slice(1)) {
+    const n = Number(page.match(/^(\d+)/)?.[1])
+    for (const m of page.matchAll(/<text [^>]*font="(\d+)"[^>]*>(.*?)<\/text>/g)) {
+      const font = fonts.get(m[1]!)!
+      const text = m[2]!.replace(/<[^>]+>/g, '').replace(/&amp;/g, '&').replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, '\'')
+      runs.push({ page: n, text, ...font })
+    }
+  }
+  return runs
+}

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { markdownToText, renderMarkdown } from '../../shared/markdown'
+import { renderMarkdown, renderNote } from '../../shared/markdown'
 
 describe('the Markdown renderer', () => {
   it('renders Markdown', () => {
@@ -41,7 +41,24 @@ describe('the Markdown renderer', () => {
     expect(renderMarkdown('![x](https://example.com/x.png)')).not.toMatch(/<img/)
   })
 
-  it('gives plain text for cards', () => {
-    expect(markdownToText('# Nose\n\nPear & **quince**, <b>no tags</b>')).toBe('Nose Pear & quince, <b>no tags</b>')
+  it('renders a note once: the same HTML as the preview, its structure for the PDF, its text', () => {
+    const source = '# Nose\n\nPear & **quince**, <b>no tags</b>\n\n- lemon _zest_\n- a **_saline_** finish\n  - long\n\n3. swirl\n4. [wait](https://example.com)\n\n> quoted  \n> line'
+    const note = renderNote(source)
+    expect(note.html).toBe(renderMarkdown(source))
+    expect(note.blocks).toEqual([
+      { kind: 'heading', depth: 0, runs: [{ text: 'Nose', bold: true }] },
+      { kind: 'paragraph', depth: 0, runs: [{ text: 'Pear & ' }, { text: 'quince', bold: true }, { text: ', <b>no tags</b>' }] },
+      { kind: 'item', depth: 1, marker: '•', runs: [{ text: 'lemon ' }, { text: 'zest', italic: true }] },
+      { kind: 'item', depth: 1, marker: '•', runs: [{ text: 'a ' }, { text: 'saline', bold: true, italic: true }, { text: ' finish' }] },
+      { kind: 'item', depth: 2, marker: '•', runs: [{ text: 'long' }] },
+      { kind: 'item', depth: 1, marker: '3.', runs: [{ text: 'swirl' }] },
+      { kind: 'item', depth: 1, marker: '4.', runs: [{ text: 'wait', href: 'https://example.com' }] },
+      { kind: 'paragraph', depth: 0, quote: true, runs: [{ text: 'quoted\nline' }] },
+    ])
+    expect(note.text).toBe('Nose\nPear & quince, <b>no tags</b>\n• lemon zest\n• a saline finish\n• long\n3. swirl\n4. wait\nquoted\nline')
+  })
+
+  it('gives refused links no target in the structure either', () => {
+    expect(renderNote('[x](javascript:alert(1))').blocks[0]!.runs.some(r => r.href)).toBe(false)
   })
 })

@@ -19,7 +19,9 @@ export default defineEventHandler(async (event): Promise<PourPage> => {
   return {
     venue: { name: venue.name, temperatureUnit: venue.temperatureUnit },
     flight: { id: view.id, name: view.name, pourCount: view.pours.length },
+    intro: view.intro,
     pour: card.pours[0]!,
+    photo: pour.photo,
     description: describePour(pour.film, { temperatureUnit: venue.temperatureUnit === 'f' ? 'F' : 'C' }),
     servingTempC: pour.servingTempC,
     residualSugarGL: pour.residualSugarGL,

@@ -1,0 +1,12 @@
+import { CARD_MARGIN_PT, CARD_PAPER_POINTS, type CardPaper } from '#shared/cards'
+
+/**
+ * A card print page's paper and Print button: the @page rule follows the chosen paper (its size,
+ * and the PDF's margin), and print() is bound in Vue, since the page's content security policy runs
+ * no inline script (an onclick attribute would do nothing).
+ */
+export function useCardPrint(initial: CardPaper = 'a5') {
+  const paper = ref<CardPaper>(initial)
+  useHead({ style: [{ key: 'card-page', innerHTML: () => `@page { size: ${CARD_PAPER_POINTS[paper.value].css}; margin: ${CARD_MARGIN_PT}pt; }` }] })
+  return { paper, print: () => window.print() }
+}

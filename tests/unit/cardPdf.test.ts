@@ -1,0 +1,60 @@
+import { readFileSync } from 'node:fs'
+import { resolve } from 'node:path'
+import { describe, expect, it } from 'vitest'
+import { computeFilm, ethanolGrams, flightTotals } from '../../shared/science'
+import { buildFlightCard } from '../../shared/cards'
+import { renderNote } from '../../shared/markdown'
+import { renderCardsPdf } from '../../server/cards/cardPdf'
+import { compactLists } from '../../server/cards/pdfText'
+import { inspectPdf, pdfRuns } from '../support/pdf'
+
+const fontDir = resolve(import.meta.dirname, '../../node_modules/@fontsource/lora/files')
+const font = (name: string) => readFileSync(resolve(fontDir, name))
+const fonts = { regular: font('lora-latin-400-normal.woff'), semibold: font('lora-latin-600-normal.woff'), italic: font('lora-latin-400-italic.woff'), semiboldItalic: font('lora-latin-600-italic.woff') }
+const glass = { name: 'Tulip wine glass', bowlDiameterMm: 84, wallAngleDeg: 78, fillHeightMm: 38 }
+/** Six invented pours, lightest to strongest (no real product). */
+const INVENTED = [
+  ['Unit Cider', 'cider', 6, 5, 8, 90], ['Unit Brut', 'sparkling', 12, 8, 7, 60], ['Unit White', 'still_wine', 12.5, 3, 10, 60],
+  ['Unit Red', 'still_wine', 14, 2, 16, 60], ['Unit Fortified', 'fortified', 19.5, 100, 16, 45], ['Unit Gin', 'spirit', 43, 0, 18, 15],
+] as const
+
+function card(note: string, intro = 'Six pours along the **shore**: take _your_ time.') {
+  const pours = INVENTED.map(([name, kind, abv, sugar, temp, ml], i) => {
+    const film = computeFilm({ abvPctVol: abv, tempC: temp, sugarGL: sugar, wallAngleDeg: glass.wallAngleDeg })
+    const g = ethanolGrams(ml, abv)
+    return { position: i + 1, product: { name, kind, producer: 'Unit Cellars', vintageOrBatch: '2025', allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film, tastingNote: renderNote(note) }
+  })
+  const venue = { name: 'Unit Tasting Room', address: '1 Unit Lane', cautions: 'Please do not drive after your tasting.\nYou must be of legal drinking age.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC' }
+  return buildFlightCard({ venue, flight: { id: 1, name: 'Unit flight', version: 1, summary: 'Six pours', pours, totals: flightTotals(pours, 14), intro: renderNote(intro) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'A Guest' })
+}
+
+describe('the card PDF with notes', () => {
+  it.each(['a5', 'half-letter'] as const)('%s: six pours, each with a note and a list, fit one page per card', async (paper) => {
+    const bytes = await renderCardsPdf([card('Green apple and **brioche**, then:\n\n- lemon _zest_\n- a **saline, chalky** finish\n- fine bubbles'), card('**Pear**.')], { paper, fonts })
+    const pdf = inspectPdf(bytes)
+    expect(pdf.pages).toBe(2)
+    expect(pdf.pageText(1).replace(/\s+/g, ' ')).toContain('Scan: the glass explained')
+    const runs = pdfRuns(bytes).filter(r => r.page === 1)
+    expect(runs.filter(r => r.text.includes('saline, chalky')).map(r => r.family)).toEqual(Array(6).fill('Lora-SemiBold'))
+    expect(runs.find(r => r.text.includes('zest'))?.family).toBe('Lora') // the italic face is named Lora too
+    expect(runs.find(r => r.text.includes('shore'))?.family).toBe('Lora-SemiBold')
+  }, 30_000)
+
+  it('a note too long for any fit step flows onto a second page and loses no words', async () => {
+    const long = Array.from({ length: 12 }, (_, i) => `- point ${i + 1} with **bold ${i + 1}** words`).join('\n')
+    const pdf = inspectPdf(await renderCardsPdf([card(long)], { paper: 'a5', fonts }))
+    expect(pdf.pages).toBe(2)
+    const flat = pdf.text.replace(/\s+/g, ' ')
+    expect(flat.match(/point 12 with bold 12 words/g)).toHaveLength(6)
+  }, 30_000)
+
+  it('runs a list on when asked: markers kept, items on shared lines', () => {
+    const blocks = renderNote('Nose:\n\n- pear\n- **quince**\n  - ripe\n\n1. swirl\n2. wait\n\nEnd.').blocks
+    expect(compactLists(blocks).map(b => ({ kind: b.kind, text: b.runs.map(r => r.text).join('') }))).toEqual([
+      { kind: 'paragraph', text: 'Nose:' },
+      { kind: 'paragraph', text: '•\u00a0pear\u2003•\u00a0quince\u2003•\u00a0ripe' },
+      { kind: 'paragraph', text: '1.\u00a0swirl\u20032.\u00a0wait' },
+      { kind: 'paragraph', text: 'End.' },
+    ])
+  })
+})
