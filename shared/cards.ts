@@ -8,6 +8,8 @@ import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
 import type { GlassShape } from './glassDiagram'
 import type { FlightCard } from './types/cards'
+import { cautionLines } from './cautions'
+import { standardDrinkDefinition, standardDrinksLine } from './utils/drinks'
 import type { RenderedText } from './types/content'
 
 export interface CardVenue {
@@ -126,11 +128,12 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       ethanolGrams: round(flight.totals.ethanolGrams, 1),
       standardDrinks: round(flight.totals.standardDrinks, 1),
       volumeText: formatVolume(flight.totals.volumeMl, venue.volumeUnit),
-      definition: `one standard drink = ${venue.standardDrinkGrams} g of ethanol`,
+      definition: standardDrinkDefinition(venue),
     },
     why: CARD_WHY,
     quality: 'Tears say nothing about quality: they come from alcohol and evaporation. Sugar slows them; it does not make them.',
-    cautions: venue.cautions.split('\n').map(s => s.trim()).filter(Boolean),
+    // The fixed block of responsible service (a manager cannot remove it), then the venue's own lines.
+    cautions: cautionLines(venue, { standardDrinksLine: standardDrinksLine('flight', flight.totals.standardDrinks, venue) }),
     qrUrl: opts.publicUrl,
   }
 }
