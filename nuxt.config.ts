@@ -57,6 +57,8 @@ export default defineNuxtConfig({
         'content-security-policy': 'default-src \'none\'; frame-ancestors \'none\'; base-uri \'none\'; form-action \'none\'',
       },
     },
+    // The host's day reads the guest's QR code with the tablet's camera: this page alone may use it.
+    '/host': { headers: { 'permissions-policy': 'camera=(self), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()' } },
     // The public list of flights is the same for everyone and read on every visit to /flights; it is
     // kept for at most 5 s (no stale-while-revalidate), so seats left there lag a booking by 5 s at
     // most. A flight's own sessions and the booking form read seats live, and booking is decided in

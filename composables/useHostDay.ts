@@ -16,8 +16,9 @@ export function useHostDay(date: Ref<string>) {
     busy,
     refresh: day.refresh,
     checkIn: (p: HostParty, seated: number, idsSeen: number, reason?: string) => act(() => post(`/api/bookings/${p.id}/check-in`, { seated, idsSeen, ...(reason ? { reason } : {}) }), `${p.contactName}: ${seated} seated.`),
-    turnAway: (p: HostParty, reason: string) => act(() => post(`/api/bookings/${p.id}/turn-away`, { reason }), `${p.contactName}'s party turned away.`),
-    noShow: (p: HostParty) => act(() => post(`/api/bookings/${p.id}/no-show`), `${p.contactName}'s party marked as not coming.`),
+    turnAway: (p: HostParty, reason: string) => act(() => post(`/api/bookings/${p.id}/turn-away`, { reason }), `${p.contactName}'s party turned away. You can undo this on their row until the session ends.`),
+    noShow: (p: HostParty) => act(() => post(`/api/bookings/${p.id}/no-show`), `${p.contactName}'s party marked as not coming. You can undo this on their row until the session ends.`),
+    undo: (p: HostParty, reason?: string) => act(() => post(`/api/bookings/${p.id}/undo-door`, reason ? { reason } : {}), `${p.contactName}'s party is back on the list to come.`),
     walkIn: (s: HostSession, body: { contactName: string, partySize: number, idsSeen: number, notes?: string }) => act(() => post(`/api/sessions/${s.id}/walk-ins`, body), `${body.contactName}: ${body.partySize} walk-in guest${body.partySize === 1 ? '' : 's'} seated.`),
   }
 }

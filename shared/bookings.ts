@@ -9,17 +9,25 @@
  * One edge is added, for money that arrives late: a payment the provider confirms after the hold
  * has already run out (`expired ──late payment──▶ confirmed`), taken only while the seats are still
  * free. If they are not, the booking stays expired and the payment goes straight back.
+ *
+ * The door has two ways into no_show: "did not come" (after the start) and "turned away" (with a
+ * reason, e.g. no ID). Both are the host's own decisions, and the host can take either back until
+ * the session ends (`no_show ──undo at the door──▶ confirmed`), so a party that arrives late can
+ * still be seated while its seats are free. The edge is only for a no-show the door decided
+ * (a check-in row says so); the route checks that, and the session's end, before it moves.
  */
 export const BOOKING_STATES = ['held', 'confirmed', 'checked_in', 'no_show', 'cancelled', 'refunded', 'expired'] as const
 export type BookingState = (typeof BOOKING_STATES)[number]
 
-export type BookingEvent = 'pay' | 'late_payment' | 'arrive' | 'no_show' | 'cancel' | 'refund' | 'expire'
+export type BookingEvent = 'pay' | 'late_payment' | 'arrive' | 'no_show' | 'turn_away' | 'undo_door' | 'cancel' | 'refund' | 'expire'
 
 export const BOOKING_TRANSITIONS: Record<BookingEvent, { from: readonly BookingState[], to: BookingState }> = {
   pay: { from: ['held'], to: 'confirmed' },
   late_payment: { from: ['expired'], to: 'confirmed' },
   arrive: { from: ['confirmed'], to: 'checked_in' },
   no_show: { from: ['confirmed'], to: 'no_show' },
+  turn_away: { from: ['confirmed'], to: 'no_show' },
+  undo_door: { from: ['no_show'], to: 'confirmed' },
   cancel: { from: ['confirmed'], to: 'cancelled' },
   refund: { from: ['cancelled'], to: 'refunded' },
   expire: { from: ['held'], to: 'expired' },
@@ -32,6 +40,19 @@ export const BOOKING_TRANSITIONS: Record<BookingEvent, { from: readonly BookingS
  */
 export const BOOKING_HISTORY_EVENTS = ['pay', 'late_payment', 'arrive', 'no_show', 'turn_away', 'undo_door', 'cancel', 'refund', 'expire'] as const
 export type BookingHistoryEvent = (typeof BOOKING_HISTORY_EVENTS)[number]
+
+/** A step of a booking's history in words a host reads. */
+export const BOOKING_HISTORY_LABELS: Record<BookingHistoryEvent, string> = {
+  pay: 'Paid',
+  late_payment: 'Paid after the time to pay ran out',
+  arrive: 'Seated',
+  no_show: 'Marked as did not come',
+  turn_away: 'Turned away',
+  undo_door: 'Put back on the list to come',
+  cancel: 'Cancelled',
+  refund: 'Refunded',
+  expire: 'Time to pay ran out',
+}
 
 export const canTransition = (from: BookingState, event: BookingEvent): boolean => BOOKING_TRANSITIONS[event].from.includes(from)
 
@@ -62,3 +83,17 @@ export const PARTY_MAX = 10
 /** Crockford's base32 alphabet: no I, L, O or U, so a code read aloud or typed is hard to get wrong. */
 export const REFERENCE_ALPHABET = '0123456789ABCDEFGHJKMNPQRSTVWXYZ'
 export const REFERENCE_LENGTH = 10
+
+/**
+ * A reference as someone typed or read it, in the form it is stored: upper case, without spaces
+ * or dashes, and with the letters Crockford's decoding rules read as digits (O as 0; I and L as 1;
+ * crockford.com/base32.html). It may still not be a reference: check with `isReference`.
+ */
+export function normalizeReference(text: string): string {
+  return text.toUpperCase().replace(/[\s\-\u2010-\u2015]+/g, '').replace(/O/g, '0').replace(/[IL]/g, '1')
+}
+
+/** Whether a normalized text can be a booking reference: ten symbols of the alphabet. */
+export function isReference(text: string): boolean {
+  return text.length === REFERENCE_LENGTH && [...text].every(ch => REFERENCE_ALPHABET.includes(ch))
+}

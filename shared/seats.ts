@@ -124,6 +124,25 @@ export function countSeats(seats: number, facts: Iterable<SeatFact>): SeatCount 
   }
 }
 
+/**
+ * The host's tiles: each guest on the door's list (booked online, or seated at the door) is in
+ * exactly one of them, so they add up to the guests booked plus the walk-ins. Seated counts
+ * walk-ins too; a partly seated party's missing guests are "not seated".
+ */
+export interface DoorTiles {
+  /** Holds still paying. */
+  paying: number
+  toCome: number
+  seated: number
+  notSeated: number
+  didNotCome: number
+  turnedAway: number
+}
+
+export function doorTiles(b: SeatBreakdown): DoorTiles {
+  return { paying: b.held, toCome: b.confirmed, seated: b.seated + b.walkIns, notSeated: b.notSeated, didNotCome: b.didNotCome, turnedAway: b.turnedAway }
+}
+
 /** Sums several sessions' counts (a report's totals). */
 export function addSeatCounts(counts: Iterable<SeatCount>): SeatCount {
   const breakdown = emptyBreakdown()

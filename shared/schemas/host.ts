@@ -1,5 +1,5 @@
-import { z } from 'zod'
-import { PARTY_MAX } from '../bookings'
+import { z } from './zod'
+import { PARTY_MAX, REFERENCE_LENGTH, isReference, normalizeReference } from '../bookings'
 import { isoDateField, personNameField } from './common'
 
 /** The day in the path of `/api/days/[date]`: a venue-local calendar date. */
@@ -18,6 +18,20 @@ export const checkInSchema = z.object({
 }).refine(v => v.idsSeen === v.seated, { error: 'Check the ID of every guest you seat.', path: ['idsSeen'] })
 
 export const turnAwaySchema = z.object({ reason: reasonField })
+
+/** Taking back a "did not come" or a "turned away": why is optional (e.g. they arrived late). */
+export const undoDoorSchema = z.object({ reason: reasonField.optional() })
+
+/**
+ * A booking reference as the host typed it or the camera read it: any case, with spaces or dashes,
+ * O for 0 and I or L for 1 (Crockford's rules); normalized to the stored form.
+ */
+const referenceField = z.string({ error: 'Type the booking reference.' })
+  .max(40, { error: `A booking reference has ${REFERENCE_LENGTH} letters and digits.` })
+  .transform(normalizeReference)
+  .refine(isReference, { error: `A booking reference has ${REFERENCE_LENGTH} letters and digits (no U); check it with the guest.` })
+
+export const referenceParams = z.object({ reference: referenceField })
 
 export const walkInSchema = z.object({
   contactName: personNameField,

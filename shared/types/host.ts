@@ -1,9 +1,23 @@
-import type { BookingState } from '../bookings'
-import type { SeatBreakdown } from '../seats'
+import type { BookingHistoryEvent, BookingState } from '../bookings'
+import type { DoorTiles, SeatBreakdown } from '../seats'
 import type { SessionStatus } from '../sessions'
 
 /** The door outcome recorded for a party. */
 export interface HostCheckIn { outcome: 'arrived' | 'turned_away' | 'no_show', seated: number, idsSeen: number, reason: string | null, recordedAt: string }
+
+/** One step of a party's history (booking_events): what, when, who and why. */
+export interface HostHistoryStep {
+  id: number
+  event: BookingHistoryEvent
+  /** The step in words a host reads. */
+  label: string
+  fromState: BookingState
+  toState: BookingState
+  /** Who did it; null when the system did (a payment, a hold running out) or the account is gone. */
+  actorName: string | null
+  reason: string | null
+  at: string
+}
 
 /** One party on the host's list. */
 export interface HostParty {
@@ -21,10 +35,27 @@ export interface HostParty {
   amountPaidMinor: number
   currency: string
   checkIn: HostCheckIn | null
+  /** Every step so far, oldest first. */
+  history: HostHistoryStep[]
+  /** The door's "did not come" or "turned away" can still be taken back (until the session ends). */
+  canUndo: boolean
 }
 
-/** The counts at a glance; `breakdown` is the one seat rule's (shared/seats.ts). */
-export interface HostSessionCounts { seats: number, taken: number, seatsLeft: number, expected: number, arrived: number, noShows: number, breakdown: SeatBreakdown }
+/**
+ * The counts at a glance, all from the one seat rule (shared/seats.ts): the tiles add up to
+ * `bookedOnline + walkIns`, the guests of the parties on the list.
+ */
+export interface HostSessionCounts {
+  seats: number
+  taken: number
+  seatsLeft: number
+  /** Guests of the online bookings on the list (paying now, to come, seated, or not). */
+  bookedOnline: number
+  /** Guests seated at the door without a booking (inside the Seated tile). */
+  walkIns: number
+  tiles: DoorTiles
+  breakdown: SeatBreakdown
+}
 
 /** One session of the host's day. */
 export interface HostSession {
@@ -33,18 +64,39 @@ export interface HostSession {
   flightName: string
   hostName: string | null
   startsAt: string
+  endsAt: string
   /** Local start time in the venue's zone, HH:mm. */
   startsLocal: string
   durationMinutes: number
   started: boolean
+  ended: boolean
   status: SessionStatus
   canAct: boolean
   counts: HostSessionCounts
   parties: HostParty[]
 }
 
-/** The host's day (GET /api/host/day): a venue-local date's sessions with every party. */
+/** The host's day (GET /api/days/[date]): a venue-local date's sessions with every party. */
 export interface HostDay { date: string, timeZone: string, sessions: HostSession[] }
+
+/**
+ * A party found by its booking reference (GET /api/bookings/by-reference/[reference]), with the
+ * session it is for, so the door can go to it or say plainly which day and session it belongs to.
+ */
+export interface HostPartyFound {
+  party: HostParty
+  session: {
+    id: number
+    flightName: string
+    hostName: string | null
+    startsAt: string
+    /** The session's calendar day in the venue's zone, YYYY-MM-DD (the host's day to open). */
+    date: string
+    status: SessionStatus
+  }
+  /** On that day's list (a booking that ended — cancelled, refunded, not completed — is not). */
+  onList: boolean
+}
 
 /** A print job of a session's cards (POST to start, GET to follow). */
 export interface CardJobStarted { jobId: string, total: number }

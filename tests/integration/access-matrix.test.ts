@@ -24,6 +24,7 @@ interface Fixtures {
   cancelSession: number
   heldBooking: number
   paidBooking: number
+  paidReference: string
   guestDateOfBirth: string
   draftFlight: () => Promise<number>
   publishedFlight: () => Promise<number>
@@ -107,6 +108,10 @@ const ROUTES: Row[] = [
   { route: 'POST /api/bookings/[id]/check-in', path: f => `/api/bookings/${f.paidBooking}/check-in`, body: () => ({ seated: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
   { route: 'POST /api/bookings/[id]/turn-away', path: f => `/api/bookings/${f.paidBooking}/turn-away`, body: () => ({ reason: 'No photo ID' }), expect: only({ manager: 409 }) },
   { route: 'POST /api/bookings/[id]/no-show', path: f => `/api/bookings/${f.paidBooking}/no-show`, expect: only({ manager: 409 }) },
+  // The paid booking was cancelled above: a manager may take back a door decision, but there is none to take back.
+  { route: 'POST /api/bookings/[id]/undo-door', path: f => `/api/bookings/${f.paidBooking}/undo-door`, expect: only({ manager: 409 }) },
+  // Typed in lower case with a space and a dash, as a host might; the matrix session has no host, so only a manager finds it.
+  { route: 'GET /api/bookings/by-reference/[reference]', path: f => `/api/bookings/by-reference/${encodeURIComponent(`${f.paidReference.slice(0, 5).toLowerCase()} -${f.paidReference.slice(5)}`)}`, expect: only({ manager: 200 }) },
   { route: 'POST /api/sessions/[id]/walk-ins', path: f => `/api/sessions/${f.session}/walk-ins`, body: () => ({ contactName: 'Matrix Walk-in', partySize: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
   { route: 'GET /api/sessions/[id]/cards', path: f => `/api/sessions/${f.session}/cards`, expect: only({ manager: 200 }) },
   // The matrix session has no paid party of its own, so the job is refused as empty (409).
@@ -214,7 +219,9 @@ describe('access matrix', () => {
     expect(checkoutIdOf(held.body.checkoutUrl)).toBeTruthy()
     fx.heldBooking = held.body.booking.id
     fx.guestDateOfBirth = demoGuest.dateOfBirth
-    fx.paidBooking = (await bookAndPay(demoGuest, fx.session, 1)).id
+    const paid = await bookAndPay(demoGuest, fx.session, 1)
+    fx.paidBooking = paid.id
+    fx.paidReference = paid.reference
 
     const newFlight = async () => {
       const res = await m.post('/api/flights', flightBody(fx))

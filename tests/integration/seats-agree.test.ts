@@ -45,12 +45,14 @@ async function everySide(opts: { listed: boolean }): Promise<Record<string, Seen
   }
   else expect(listed, 'a started session is off the public list').toBeUndefined()
 
-  const hostDay = await host.get(`/api/host/day?date=${day}`)
+  const hostDay = await host.get(`/api/days/${day}`)
   expect(hostDay.status).toBe(200)
-  const counts = (hostDay.body.sessions as { id: number, counts: { taken: number, seatsLeft: number, breakdown: Record<string, number> } }[]).find(s => s.id === sessionId)!.counts
+  const counts = (hostDay.body.sessions as { id: number, counts: { taken: number, seatsLeft: number, bookedOnline: number, walkIns: number, tiles: Record<string, number>, breakdown: Record<string, number> } }[]).find(s => s.id === sessionId)!.counts
   sides['the host\'s day'] = { seatsTaken: counts.taken, seatsLeft: counts.seatsLeft, breakdown: counts.breakdown }
+  // The host's tiles are the same breakdown cut for the door: they add up to the guests booked plus the walk-ins.
+  expect(Object.values(counts.tiles).reduce((a, b) => a + b, 0), 'the host\'s tiles add up').toBe(counts.bookedOnline + counts.walkIns)
 
-  const report = await manager.get(`/api/manage/bookings?from=${day}&to=${day}`)
+  const report = await manager.get(`/api/reports/bookings?from=${day}&to=${day}`)
   expect(report.status).toBe(200)
   const row = (report.body.sessions as { session: { id: number }, seatsTaken: number, seatsLeft: number, seatBreakdown: Record<string, number> }[]).find(s => s.session.id === sessionId)!
   sides['the manager\'s report'] = { seatsTaken: row.seatsTaken, seatsLeft: row.seatsLeft, breakdown: row.seatBreakdown }
@@ -82,11 +84,11 @@ beforeAll(async () => {
   parties.coming = (await bookAndPay(await newGuest('agree-coming'), sessionId, 2)).id
 
   await moveStart(20) // today, not started: the door opens
-  expect((await host.post(`/api/host/bookings/${parties.partly}/check-in`, { seated: 2, idsSeen: 2, reason: 'One guest is parking the car' })).status).toBe(200)
-  expect((await host.post(`/api/host/bookings/${parties.turnedAway}/turn-away`, { reason: 'No photo ID' })).status).toBe(200)
-  expect((await host.post(`/api/host/sessions/${sessionId}/walk-ins`, { contactName: 'Walk-in pair', partySize: 2, idsSeen: 2 })).status).toBe(201)
+  expect((await host.post(`/api/bookings/${parties.partly}/check-in`, { seated: 2, idsSeen: 2, reason: 'One guest is parking the car' })).status).toBe(200)
+  expect((await host.post(`/api/bookings/${parties.turnedAway}/turn-away`, { reason: 'No photo ID' })).status).toBe(200)
+  expect((await host.post(`/api/sessions/${sessionId}/walk-ins`, { contactName: 'Walk-in pair', partySize: 2, idsSeen: 2 })).status).toBe(201)
   await moveStart(-10) // started: a party that has not come can be marked
-  expect((await host.post(`/api/host/bookings/${parties.noShow}/no-show`)).status).toBe(200)
+  expect((await host.post(`/api/bookings/${parties.noShow}/no-show`)).status).toBe(200)
 })
 
 describe('one session, every screen', () => {
@@ -96,7 +98,7 @@ describe('one session, every screen', () => {
   })
 
   it('the door refuses one walk-in more than the seats left, and says how many are left', async () => {
-    const res = await host.post(`/api/host/sessions/${sessionId}/walk-ins`, { contactName: 'Too many', partySize: 4, idsSeen: 4 })
+    const res = await host.post(`/api/sessions/${sessionId}/walk-ins`, { contactName: 'Too many', partySize: 4, idsSeen: 4 })
     expect(res.status).toBe(409)
     expect(res.body.data.seatsLeft).toBe(3)
     expect(res.body.message).toBe('Only 3 seats left.')
@@ -131,7 +133,7 @@ describe('one session, every screen', () => {
   })
 
   it('the report\'s fill rate counts seats sold: taken, plus the parties that did not come or were turned away', async () => {
-    const report = await manager.get(`/api/manage/bookings?from=${day}&to=${day}`)
+    const report = await manager.get(`/api/reports/bookings?from=${day}&to=${day}`)
     const row = report.body.sessions.find((s: { session: { id: number } }) => s.session.id === sessionId)
     expect(row).toMatchObject({ seatsTaken: 10, seatsLeft: 0, seatsSold: 13, fillRate: 1.3 })
   })

@@ -1,16 +1,19 @@
 import { describe, expect, it } from 'vitest'
-import { BOOKING_STATES, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, canTransition, type BookingEvent, type BookingState } from '../../shared/bookings'
+import { BOOKING_HISTORY_EVENTS, BOOKING_STATES, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, canTransition, isReference, normalizeReference, type BookingEvent, type BookingState } from '../../shared/bookings'
 import { minorToDecimal } from '../../shared/money'
 import { bookingCreateSchema, bookingReportQuerySchema } from '../../shared/schemas/bookings'
 import { fieldErrorsFromZod } from '../../shared/utils/fieldErrors'
 
 describe('the booking state diagram', () => {
-  // Every edge of the product design's diagram, plus the one late-payment edge documented in shared/bookings.ts.
+  // Every edge of the product design's diagram, plus the late-payment edge and the door's own two
+  // (turning away, and taking back a door decision) documented in shared/bookings.ts.
   const edges: [BookingState, BookingEvent, BookingState][] = [
     ['held', 'pay', 'confirmed'],
     ['held', 'expire', 'expired'],
     ['confirmed', 'arrive', 'checked_in'],
     ['confirmed', 'no_show', 'no_show'],
+    ['confirmed', 'turn_away', 'no_show'],
+    ['no_show', 'undo_door', 'confirmed'],
     ['confirmed', 'cancel', 'cancelled'],
     ['cancelled', 'refund', 'refunded'],
     ['expired', 'late_payment', 'confirmed'],
@@ -29,6 +32,34 @@ describe('the booking state diagram', () => {
       }
     }
   })
+
+  it('records every move in a booking\'s history', () => {
+    for (const event of Object.keys(BOOKING_TRANSITIONS)) expect(BOOKING_HISTORY_EVENTS, event).toContain(event)
+  })
+})
+
+describe('a reference as a host types it or a camera reads it', () => {
+  it.each([
+    ['7K2M9QXP4T', '7K2M9QXP4T'],
+    ['7k2m9qxp4t', '7K2M9QXP4T'],
+    [' 7k2m9 qxp4t ', '7K2M9QXP4T'],
+    ['7K2M9-QXP4T', '7K2M9QXP4T'],
+    ['7K2M9\u2013QXP4T', '7K2M9QXP4T'], // an en dash, as a phone's keyboard may put in
+    // Crockford, "Base32", crockford.com/base32.html: O is read as 0, I and L as 1.
+    ['7K2M9QXP4O', '7K2M9QXP40'],
+    ['iK2M9QXP4l', '1K2M9QXP41'],
+  ])('%j is %s', (typed, stored) => {
+    expect(normalizeReference(typed)).toBe(stored)
+    expect(isReference(normalizeReference(typed))).toBe(true)
+  })
+
+  it.each([
+    ['too short', '7K2M9QXP4'],
+    ['too long', '7K2M9QXP4TT'],
+    ['U is not in the alphabet', '7K2M9QXP4U'],
+    ['a card\'s web address', 'https://larmoir.test/p/1'],
+    ['empty', ''],
+  ])('refuses %s', (_what, typed) => expect(isReference(normalizeReference(typed))).toBe(false))
 })
 
 describe('booking references and money', () => {

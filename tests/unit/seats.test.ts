@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { BOOKING_STATES, type BookingState } from '../../shared/bookings'
-import { addSeatCounts, countSeats, seatFactOf, type SeatBreakdown, type SeatFact } from '../../shared/seats'
+import { addSeatCounts, countSeats, doorTiles, seatFactOf, type SeatBreakdown, type SeatFact } from '../../shared/seats'
 
 const fact = (over: Partial<SeatFact> & { state: BookingState }): SeatFact => ({ partySize: 2, holdLive: false, outcome: null, seated: 0, walkIn: false, ...over })
 const none: SeatBreakdown = { held: 0, confirmed: 0, seated: 0, notSeated: 0, didNotCome: 0, turnedAway: 0, walkIns: 0 }
@@ -136,5 +136,23 @@ describe('totals', () => {
       breakdown: { ...none, confirmed: 9, didNotCome: 2 },
     })
     expect(addSeatCounts([])).toEqual({ seats: 0, seatsTaken: 0, seatsLeft: 0, seatsSold: 0, breakdown: none })
+  })
+})
+
+describe('the host\'s tiles', () => {
+  it('put every guest booked or seated at the door in exactly one tile', () => {
+    const facts = [
+      fact({ state: 'held', partySize: 2, holdLive: true }),
+      fact({ state: 'confirmed', partySize: 3 }),
+      fact({ state: 'checked_in', partySize: 4, outcome: 'arrived', seated: 3 }),
+      fact({ state: 'checked_in', partySize: 2, outcome: 'arrived', seated: 2 }),
+      fact({ state: 'checked_in', partySize: 2, outcome: 'arrived', seated: 2, walkIn: true }),
+      fact({ state: 'no_show', partySize: 1, outcome: 'no_show' }),
+      fact({ state: 'no_show', partySize: 2, outcome: 'turned_away' }),
+    ]
+    const tiles = doorTiles(countSeats(20, facts).breakdown)
+    expect(tiles).toEqual({ paying: 2, toCome: 3, seated: 3 + 2 + 2, notSeated: 1, didNotCome: 1, turnedAway: 2 })
+    const guests = facts.reduce((n, f) => n + f.partySize, 0)
+    expect(Object.values(tiles).reduce((a, b) => a + b, 0)).toBe(guests)
   })
 })

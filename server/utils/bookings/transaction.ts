@@ -83,6 +83,7 @@ export async function moveBooking(tx: Tx, booking: Booking, event: BookingEvent,
 
 const EVENT_WORDS: Record<BookingEvent, string> = {
   pay: 'paid', late_payment: 'paid', arrive: 'checked in', no_show: 'marked as a no-show',
+  turn_away: 'turned away', undo_door: 'put back on the list to come',
   cancel: 'cancelled', refund: 'refunded', expire: 'released',
 }
 

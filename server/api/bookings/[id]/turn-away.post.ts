@@ -1,7 +1,10 @@
 import { idParam } from '../../../../shared/schemas/common'
 import { turnAwaySchema } from '../../../../shared/schemas/host'
 
-/** The party is not served (no ID, already intoxicated…): recorded with the reason; it ends as a no-show. */
+/**
+ * The party is not served (no ID, already intoxicated…): recorded with the reason; it ends as a
+ * no-show, which the host can take back until the session ends (undo-door).
+ */
 export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const { reason } = await readBodyAs(event, turnAwaySchema)
@@ -9,8 +12,7 @@ export default defineEventHandler(async (event) => {
   assertSessionDay(session, venue)
   await bookingTransaction(async (tx) => {
     const { booking } = await lockBookingWithSession(tx, id)
-    await moveBooking(tx, booking, 'no_show')
-    await recordCheckIn(tx, id, user.id, { outcome: 'turned_away', seated: 0, idsSeen: 0, reason })
+    await decideAtDoor(tx, booking, user.id, { event: 'turn_away', seated: 0, idsSeen: 0, reason })
   })
   return { ok: true }
 })

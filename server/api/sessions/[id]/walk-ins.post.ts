@@ -22,7 +22,7 @@ export default defineEventHandler(async (event) => {
       ageConfirmed: true, unitPriceMinor: locked.priceMinor, amountMinor: locked.priceMinor * input.partySize, currency: locked.currency,
       holdExpiresAt: now, confirmedAt: now, checkedInAt: now,
     }).$returningId()
-    await recordCheckIn(tx, row!.id, user.id, { outcome: 'arrived', seated: input.partySize, idsSeen: input.idsSeen })
+    await recordWalkIn(tx, row!.id, user.id, input.partySize, input.idsSeen)
     return { bookingId: row!.id, staleCheckouts }
   })
   void expireCheckoutSessions(staleCheckouts)
