@@ -18,6 +18,8 @@ export function useContentDoc(kind: ContentKind, subject: string) {
   )
 
   return {
+    /** Resolves once both are loaded: await it before copying the draft into the inputs, so the server renders what the browser will. */
+    ready: Promise.all([doc, revisions]),
     doc: doc.data,
     revisions: revisions.data,
     message,

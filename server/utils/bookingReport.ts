@@ -3,6 +3,7 @@ import { DateTime } from 'luxon'
 import type { Venue } from '../db/schema/venues'
 import type { z } from 'zod'
 import type { bookingReportQuerySchema } from '../../shared/schemas/bookings'
+import type { BookingReport } from '../../shared/types/reports'
 
 type ReportQuery = z.output<typeof bookingReportQuerySchema>
 
@@ -10,7 +11,7 @@ type ReportQuery = z.output<typeof bookingReportQuerySchema>
 const FILL_STATES = new Set(['held', 'confirmed', 'checked_in', 'no_show'])
 
 /** The venue's calendar days turned into a UTC range; by default from a week ago to four weeks ahead. */
-export function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
+function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
   const today = DateTime.now().setZone(venue.timeZone).startOf('day')
   const from = q.from ? DateTime.fromISO(q.from, { zone: venue.timeZone }) : today.minus({ days: 7 })
   const to = q.to ? DateTime.fromISO(q.to, { zone: venue.timeZone }) : today.plus({ days: 28 })
@@ -21,7 +22,7 @@ export function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
  * Sessions in the range with their bookings (two queries), each session's fill rate and takings,
  * and the totals. Takings are what was paid less what was refunded, in minor units.
  */
-export async function loadBookingReport(venue: Venue, q: ReportQuery) {
+export async function loadBookingReport(venue: Venue, q: ReportQuery): Promise<BookingReport> {
   const range = reportRange(venue, q)
   const s = tables.tastingSessions
   const where: SQL[] = [eq(s.venueId, venue.id), gte(s.startsAt, range.fromUtc), lt(s.startsAt, range.toUtc)]
@@ -46,6 +47,7 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery) {
       contactName: row.contactName,
       contactEmail: row.contactEmail,
       contactPhone: row.contactPhone,
+      notes: row.notes?.trim() ? row.notes : null,
       partySize: row.partySize,
       amountMinor: row.amountMinor,
       amountPaidMinor: row.amountPaidMinor,

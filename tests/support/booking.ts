@@ -82,21 +82,25 @@ export async function demoFlightId(): Promise<number> {
 
 /**
  * A fresh session of the demo flight starting `hoursAhead` from now (venue time, to the minute),
- * so a test owns every seat in it.
+ * so a test owns every seat in it. A flight has one session per start, so a minute another test
+ * already took is tried again at another minute.
  */
 export async function newSession(manager: Client, opts: { hoursAhead?: number, seats?: number, priceMinor?: number, bookingCutoffMinutes?: number } = {}): Promise<{ id: number, startsAt: string }> {
-  const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ hours: opts.hoursAhead ?? 24 * 9, minutes: Math.floor(Math.random() * 50) })
-  const res = await manager.post('/api/sessions', {
-    flightId: await demoFlightId(),
-    startDate: start.toISODate(),
-    startTime: start.toFormat('HH:mm'),
-    durationMinutes: 75,
-    seats: opts.seats ?? 8,
-    priceMinor: opts.priceMinor ?? 3500,
-    bookingCutoffMinutes: opts.bookingCutoffMinutes ?? 60,
-  })
-  expect(res.status, JSON.stringify(res.body)).toBe(201)
-  return { id: res.body[0].id, startsAt: res.body[0].startsAt }
+  for (let attempt = 0; ; attempt++) {
+    const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ hours: opts.hoursAhead ?? 24 * 9, minutes: Math.floor(Math.random() * 50) })
+    const res = await manager.post('/api/sessions', {
+      flightId: await demoFlightId(),
+      startDate: start.toISODate(),
+      startTime: start.toFormat('HH:mm'),
+      durationMinutes: 75,
+      seats: opts.seats ?? 8,
+      priceMinor: opts.priceMinor ?? 3500,
+      bookingCutoffMinutes: opts.bookingCutoffMinutes ?? 60,
+    })
+    if (res.status === 409 && attempt < 5) continue
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    return { id: res.body[0].id, startsAt: res.body[0].startsAt }
+  }
 }
 
 export function bookingBody(sessionId: number, guest: { email: string, name: string, dateOfBirth: string }, partySize = 2) {

@@ -10,13 +10,15 @@ const FLAGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', 
 
 export const SHOTS_DIR = resolve(import.meta.dirname, '../../test-results/screenshots')
 
-export async function openBrowser(viewport = { width: 1280, height: 900 }): Promise<{ context: BrowserContext, close: () => Promise<void> }> {
+/** `timezoneId` runs the browser in another zone than the server's, to catch pages that use the browser's clock. */
+export async function openBrowser(viewport = { width: 1280, height: 900 }, options: { timezoneId?: string } = {}): Promise<{ context: BrowserContext, close: () => Promise<void> }> {
   const profile = mkdtempSync(resolve(tmpdir(), 'larmoir-chromium-'))
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: '/usr/bin/chromium',
     args: FLAGS,
     headless: true,
     viewport,
+    ...options,
     baseURL: inject('appUrl'),
   })
   // Fail a step within seconds, with the locator in the message, rather than at the test's timeout.
