@@ -3,7 +3,7 @@ import type { BrowserContext, Page } from 'playwright-core'
 import { DateTime } from 'luxon'
 import { openBrowser, shot, signInThroughForm } from '../support/browser'
 import { countRows, withDb } from '../support/db'
-import { bookAndPay, demoFlightId, newGuest, newSession, signedIn } from '../support/booking'
+import { bookAndPay, bookingBody, checkoutIdOf, demoFlightId, newGuest, newSession, payCheckout, signedIn, waitForState } from '../support/booking'
 import type { Client } from '../support/http'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
 import { formatDay, formatDayTime, formatTime } from '../../shared/dates'
@@ -50,9 +50,7 @@ describe('the flight builder', () => {
     await page.goto('/manage/flights/new')
     await page.getByLabel('Flight name').fill(`Unsaved flight ${Date.now()}`)
     await addPour(page, 'Tidewater Albariño')
-    // An editable pour shows the same figures as every other page.
-    expect(await page.getByLabel('Pour (fl oz)').inputValue()).toBe('2.0') // 60 mL (a still wine's default pour) = 2.03 US fl oz (1 fl oz = 29.5735295625 mL, US customary units), to a tenth
-    expect(await page.getByLabel('Serve at (°F)').inputValue()).toBe('48') // 9 °C = 48.2 °F (°F = °C × 9/5 + 32), whole degrees
+    await page.getByText('Not saved yet').waitFor()
 
     const dialogs: string[] = []
     page.once('dialog', (d) => { dialogs.push(`${d.type()}: ${d.message()}`); void d.dismiss() })
@@ -102,6 +100,15 @@ describe('the flight builder', () => {
     expect(volumes).toEqual(['3.0', '2.0', '2.0', '2.0', '1.5', '0.5']) // 3.04, 2.03, 2.03, 2.03, 1.52, 0.51
     expect(temps).toEqual(['46', '45', '50', '61', '61', '64']) // 46.4, 44.6, 50, 60.8, 60.8, 64.4
     await shot(page, 'manager-builder-figures')
+    // An editable pour too: a still wine's default 60 mL at the product's 9 °C.
+    await page.goto('/manage/flights/new')
+    await addPour(page, 'Tidewater Albariño')
+    expect(await page.getByLabel('Pour (fl oz)').inputValue()).toBe('2.0') // 60 mL = 2.03 US fl oz (1 fl oz = 29.5735295625 mL, US customary units), to a tenth
+    expect(await page.getByLabel('Serve at (°F)').inputValue()).toBe('48') // 9 °C = 48.2 °F (°F = °C × 9/5 + 32), whole degrees
+    await page.getByLabel('Pour (fl oz)').fill('2.5')
+    await page.getByLabel('Pour (fl oz)').press('Tab')
+    await page.getByText('2.5 fl oz').waitFor() // the per-guest total follows the typed figure
+    page.on('dialog', d => void d.accept()) // leaving the unsaved flight is asked about; yes
     await page.goto(`/flights/${id}`)
     await page.getByText('3.0 fl oz').first().waitFor()
     expect(await page.getByText('46 °F').count()).toBeGreaterThan(0)
@@ -167,6 +174,15 @@ describe('the overview', () => {
     expect(await page.locator('[data-figure="takings-net"]').innerText()).toBe(formatMoney(api.takings.netMinor, 'USD'))
     expect(await page.getByText('The last 7 days,').count()).toBe(1)
     await shot(page, 'manager-overview')
+
+    // The bookings view of the day ahead shows what a guest asked the venue to know.
+    const noted = await newGuest('overview-notes')
+    const res = await noted.client.post('/api/bookings', { ...bookingBody(ahead.id, noted, 1), notes: 'Gluten-free crackers, please' })
+    expect((await payCheckout(checkoutIdOf(res.body.checkoutUrl))).status).toBe(200)
+    await waitForState(res.body.booking.id, 'confirmed')
+    await page.goto(`/manage/bookings?from=${aheadDay}&to=${aheadDay}`, { waitUntil: 'networkidle' })
+    await page.getByText('Guest note: Gluten-free crackers, please').waitFor()
+    await shot(page, 'manager-bookings-notes')
     expect(warnings).toEqual([])
     await page.close()
   }, 90_000)
