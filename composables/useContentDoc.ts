@@ -18,8 +18,8 @@ export function useContentDoc(kind: ContentKind, subject: string) {
   )
 
   return {
-    /** Resolves once the document and its revisions are loaded (on the server, before rendering). */
-    ready: Promise.all([doc, revisions]).then(() => undefined),
+    /** Resolves once both are loaded: await it before copying the draft into the inputs, so the server renders what the browser will. */
+    ready: Promise.all([doc, revisions]),
     doc: doc.data,
     revisions: revisions.data,
     message,

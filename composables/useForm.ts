@@ -12,16 +12,18 @@ export function useForm<S extends z.ZodType>(schema: S, initial: z.input<S>, onV
   const pending = ref(false)
 
   async function submit() {
+    // Busy from the first moment, so a second click while checking or sending does nothing.
+    if (pending.value) return
+    pending.value = true
     errors.value = {}
     formError.value = ''
-    const parsed = await schema.safeParseAsync(toRaw(values))
-    if (!parsed.success) {
-      errors.value = fieldErrorsFromZod(parsed.error)
-      formError.value = 'Please correct the fields marked below.'
-      return
-    }
-    pending.value = true
     try {
+      const parsed = await schema.safeParseAsync(toRaw(values))
+      if (!parsed.success) {
+        errors.value = fieldErrorsFromZod(parsed.error)
+        formError.value = 'Please correct the fields marked below.'
+        return
+      }
       await onValid(parsed.data)
     }
     catch (err) {

@@ -1,7 +1,6 @@
-import { formatCalendarDay } from '#shared/dates'
 import type { MeasurementInput } from '#shared/schemas/products'
 import type { ProductView } from '#shared/types/products'
-import { formatVolume, toDisplayTemp } from '#shared/pours'
+import { formatTemperature, formatVolume, temperatureFigure } from '#shared/pours'
 
 /** The venue's products, with their current numbers and derived figures. */
 export function useProductList() {
@@ -43,7 +42,7 @@ export function useProductActions() {
 /** Numbers as the venue reads them: its volume and temperature units, its currency. */
 export function useProductFormat() {
   const { data: venue } = useVenue()
-  const { money, dateTime } = useVenueFormat()
+  const { money, dayTime, calendarDay } = useVenueFormat()
   const volumeUnit = computed(() => venue.value?.volumeUnit ?? 'ml')
   const temperatureUnit = computed(() => venue.value?.temperatureUnit ?? 'c')
   return {
@@ -52,10 +51,11 @@ export function useProductFormat() {
     tempUnitLabel: computed(() => (temperatureUnit.value === 'f' ? '°F' : '°C')),
     currency: computed(() => venue.value?.currency ?? 'USD'),
     money,
-    dateTime,
+    /** An instant in the venue's zone and locale: "Sat, Oct 3, 2:00 PM". */
+    dateTime: dayTime,
     /** Serving temperature as a number in the venue's unit, whole degrees. */
-    temp: (c: number) => String(Math.round(toDisplayTemp(c, temperatureUnit.value))),
-    tempWithUnit: (c: number) => `${Math.round(toDisplayTemp(c, temperatureUnit.value))} ${temperatureUnit.value === 'f' ? '°F' : '°C'}`,
+    temp: (c: number) => temperatureFigure(c, temperatureUnit.value),
+    tempWithUnit: (c: number) => formatTemperature(c, temperatureUnit.value),
     volume: (ml: number) => formatVolume(ml, volumeUnit.value),
     abv: (v: number) => v.toFixed(1),
     sugar: (v: number) => (v < 10 ? v.toFixed(1) : v.toFixed(0)),
@@ -63,6 +63,6 @@ export function useProductFormat() {
     grams: (v: number) => v.toFixed(1),
     index: (v: number) => v.toFixed(1),
     /** A calendar date (YYYY-MM-DD) read as a date, not an instant, so no zone can shift it. */
-    day: (iso: string) => formatCalendarDay(iso, { timeZone: venue.value?.timeZone ?? 'UTC', locale: venue.value?.locale ?? 'en-US' }),
+    day: (iso: string) => calendarDay(iso),
   }
 }

@@ -16,15 +16,32 @@ export const DEFAULT_TASTING_POUR_ML: Record<ProductKind, number> = {
   other: 60,
 }
 
-export function formatVolume(ml: number, unit: 'ml' | 'floz'): string {
-  return unit === 'floz' ? `${(ml / ML_PER_US_FL_OZ).toFixed(1)} fl oz` : `${Math.round(ml)} mL`
+type VolumeUnit = 'ml' | 'floz'
+type TemperatureUnit = 'c' | 'f'
+
+/**
+ * The one rule for a volume anyone reads (guest pages, cards, the builder, its inputs): US fl oz to
+ * a tenth, mL whole. "2.0" for 60 mL in fl oz, "60" in mL.
+ */
+export function volumeFigure(ml: number, unit: VolumeUnit): string {
+  return unit === 'floz' ? (ml / ML_PER_US_FL_OZ).toFixed(1) : String(Math.round(ml))
 }
 
-export function formatTemperature(c: number, unit: 'c' | 'f'): string {
-  return unit === 'f' ? `${Math.round(celsiusToFahrenheit(c))} °F` : `${Math.round(c)} °C`
+/** The one rule for a temperature anyone reads: whole degrees. "46" for 8 °C in °F. */
+export function temperatureFigure(c: number, unit: TemperatureUnit): string {
+  return String(Math.round(unit === 'f' ? celsiusToFahrenheit(c) : c))
 }
 
-export const toDisplayVolume = (ml: number, unit: 'ml' | 'floz') => unit === 'floz' ? Math.round(ml / ML_PER_US_FL_OZ * 100) / 100 : Math.round(ml)
-export const fromDisplayVolume = (v: number, unit: 'ml' | 'floz') => unit === 'floz' ? v * ML_PER_US_FL_OZ : v
-export const toDisplayTemp = (c: number, unit: 'c' | 'f') => unit === 'f' ? Math.round(celsiusToFahrenheit(c) * 10) / 10 : c
-export const fromDisplayTemp = (v: number, unit: 'c' | 'f') => unit === 'f' ? fahrenheitToCelsius(v) : v
+/** "2.0 fl oz", "60 mL". */
+export function formatVolume(ml: number, unit: VolumeUnit): string {
+  return `${volumeFigure(ml, unit)} ${unit === 'floz' ? 'fl oz' : 'mL'}`
+}
+
+/** "46 °F", "8 °C". */
+export function formatTemperature(c: number, unit: TemperatureUnit): string {
+  return `${temperatureFigure(c, unit)} ${unit === 'f' ? '°F' : '°C'}`
+}
+
+/** What a typed figure in the venue's unit stands for, in mL and °C. */
+export const fromDisplayVolume = (v: number, unit: VolumeUnit) => unit === 'floz' ? v * ML_PER_US_FL_OZ : v
+export const fromDisplayTemp = (v: number, unit: TemperatureUnit) => unit === 'f' ? fahrenheitToCelsius(v) : v

@@ -81,6 +81,7 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
       sessionCount.value = 0
       pours.value = []
       preview.value = null
+      dirty.value = false
     }
   }
 

@@ -1,7 +1,7 @@
 import { z } from '#shared/schemas/zod'
 import type { Allergen, ProductKind, ProductStatus } from '#shared/products'
 import { measurementSchema, productCreateSchema, productPatchSchema } from '#shared/schemas/products'
-import { fromDisplayTemp, toDisplayTemp } from '#shared/pours'
+import { fromDisplayTemp, temperatureFigure } from '#shared/pours'
 import { TEMP_RANGE_C } from '#shared/science/ranges'
 import type { ProductView } from '#shared/types/products'
 import { currencyDigits, minorToDecimal, parseMoney } from '#shared/money'
@@ -92,7 +92,8 @@ export function productFormValues(p: ProductView | null, units: FormUnits): Prod
     name: p.name,
     producer: p.producer,
     vintageOrBatch: p.vintageOrBatch ?? '',
-    servingTemp: Math.round(toDisplayTemp(p.servingTempC, units.temperatureUnit) * 10) / 10,
+    // The figure every page shows; the edit form sends only what changed, so an untouched one stays exact.
+    servingTemp: Number(temperatureFigure(p.servingTempC, units.temperatureUnit)),
     allergens: [...p.allergens],
     bottleSizeMl: p.bottleSizeMl,
     cost: p.costPerBottleMinor === null ? '' : minorToDecimal(p.costPerBottleMinor, units.currency),
@@ -112,7 +113,7 @@ export function blankMeasurement(timeZone: string, from?: { lab: string, method:
 /** The schema speaks °C; a venue that reads °F gets the same range in °F. */
 export function temperatureMessage(message: string | undefined, unit: 'c' | 'f'): string | undefined {
   if (!message || unit === 'c' || !/between/.test(message)) return message
-  const f = (c: number) => Math.round(toDisplayTemp(c, 'f'))
+  const f = (c: number) => temperatureFigure(c, 'f')
   return `The serving temperature must be between ${f(TEMP_RANGE_C.min)} and ${f(TEMP_RANGE_C.max)} °F.`
 }
 

@@ -9,7 +9,7 @@ import type { BookingReport } from '../../shared/types/reports'
 type ReportQuery = z.output<typeof bookingReportQuerySchema>
 
 /** The venue's calendar days turned into a UTC range; by default from a week ago to four weeks ahead. */
-export function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
+function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
   const today = DateTime.now().setZone(venue.timeZone).startOf('day')
   const from = q.from ? DateTime.fromISO(q.from, { zone: venue.timeZone }) : today.minus({ days: 7 })
   const to = q.to ? DateTime.fromISO(q.to, { zone: venue.timeZone }) : today.plus({ days: 28 })
@@ -53,6 +53,7 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery): Promise<B
       contactName: row.contactName,
       contactEmail: row.contactEmail,
       contactPhone: row.contactPhone,
+      notes: row.notes?.trim() ? row.notes : null,
       partySize: row.partySize,
       amountMinor: row.amountMinor,
       amountPaidMinor: row.amountPaidMinor,

@@ -70,3 +70,45 @@ describe('sessions', () => {
     expect((await manager.get('/api/sessions?from=June')).status).toBe(400)
   })
 })
+
+describe('one session per flight and start', () => {
+  // A minute of its own for each run of a test, so reruns against one database do not meet.
+  const minute = () => String(10 + Math.floor(Math.random() * 50)).padStart(2, '0')
+
+  it('a second POST of the same session, at once or later, writes no second row and answers 409 with a message', async () => {
+    const body = { ...base(), startDate: '2028-03-04', startTime: `15:${minute()}` }
+    const same = 'flight_id = ? AND starts_at = ?'
+    const [a, b] = await Promise.all([manager.post('/api/sessions', body), manager.post('/api/sessions', body)])
+    expect([a.status, b.status].sort()).toEqual([201, 409])
+    const created = (a.status === 201 ? a : b).body[0] as { startsAt: string }
+    const refused = a.status === 409 ? a : b
+    // 4 March 2028 is a Saturday; New York is on EST (UTC−5) then (US Energy Policy Act of 2005).
+    expect(refused.body.message).toMatch(/already a session of Shoreline Flight on Sat, Mar 4, 2028, 3:\d\d PM/)
+    expect(refused.body.data.fields.startTime).toMatch(/already a session/)
+    const at = created.startsAt.replace('T', ' ').replace('Z', '')
+    expect(await countRows('tasting_sessions', same, [flightId, at])).toBe(1)
+
+    const later = await manager.post('/api/sessions', body)
+    expect(later.status).toBe(409)
+    expect(await countRows('tasting_sessions', same, [flightId, at])).toBe(1)
+  })
+
+  it('a weekly series that meets one existing session writes none of its sessions', async () => {
+    const startTime = `16:${minute()}`
+    // 1 April 2028 is a Saturday; its third week is 15 April.
+    const single = await manager.post('/api/sessions', { ...base(), startDate: '2028-04-15', startTime })
+    expect(single.status).toBe(201)
+    const before = await countRows('tasting_sessions', 'flight_id = ?', [flightId])
+    const series = await manager.post('/api/sessions', { ...base(), startDate: '2028-04-01', startTime, repeatWeeks: 4 })
+    expect(series.status).toBe(409)
+    expect(series.body.data.fields.startTime).toMatch(/Sat, Apr 15, 2028/)
+    expect(series.body.message).toMatch(/None of the 4 sessions were scheduled/)
+    expect(await countRows('tasting_sessions', 'flight_id = ?', [flightId])).toBe(before)
+
+    // The same series an hour later has no clash and is written whole.
+    const hourLater = `17:${startTime.slice(3)}`
+    const ok = await manager.post('/api/sessions', { ...base(), startDate: '2028-04-01', startTime: hourLater, repeatWeeks: 4 })
+    expect(ok.status).toBe(201)
+    expect(await countRows('tasting_sessions', 'flight_id = ?', [flightId])).toBe(before + 4)
+  })
+})

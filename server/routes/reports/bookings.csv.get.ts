@@ -3,6 +3,7 @@ import { DateTime } from 'luxon'
 import { bookingReportQuerySchema } from '../../../shared/schemas/bookings'
 import { BOOKING_STATE_LABELS } from '../../../shared/bookings'
 import { minorToDecimal } from '../../../shared/money'
+import { SESSION_STATUS_LABELS } from '../../../shared/sessions'
 
 /** A cell a spreadsheet would run as a formula gets a leading apostrophe (OWASP, CSV injection). */
 const safeText = (v: string) => (/^[=+\-@\t\r]/.test(v) ? `'${v}` : v)
@@ -20,11 +21,12 @@ export default defineEventHandler(async (event) => {
     'Session start': local(session.startsAt),
     'Session id': session.id,
     'Flight': safeText(session.flightName),
-    'Session status': session.status,
+    'Session status': SESSION_STATUS_LABELS[session.status],
     'Guest': safeText(b.contactName),
     'E-mail': safeText(b.contactEmail),
     'Phone': safeText(b.contactPhone),
     'Party': b.partySize,
+    'Guest notes': safeText(b.notes ?? ''),
     'State': BOOKING_STATE_LABELS[b.state],
     'Amount due': minorToDecimal(b.amountMinor, b.currency),
     'Paid': minorToDecimal(b.amountPaidMinor, b.currency),
@@ -32,7 +34,7 @@ export default defineEventHandler(async (event) => {
     'Currency': b.currency,
     'Booked at': local(b.createdAt),
   })))
-  const fields = ['Reference', 'Session start', 'Session id', 'Flight', 'Session status', 'Guest', 'E-mail', 'Phone', 'Party', 'State', 'Amount due', 'Paid', 'Refunded', 'Currency', 'Booked at']
+  const fields = ['Reference', 'Session start', 'Session id', 'Flight', 'Session status', 'Guest', 'E-mail', 'Phone', 'Party', 'Guest notes', 'State', 'Amount due', 'Paid', 'Refunded', 'Currency', 'Booked at']
   setResponseHeader(event, 'content-type', 'text/csv; charset=utf-8')
   setResponseHeader(event, 'content-disposition', `attachment; filename="bookings-${report.from}-to-${report.to}.csv"`)
   return Papa.unparse({ fields, data: rows.map(r => fields.map(f => r[f as keyof typeof r])) }, { newline: '\r\n' })
