@@ -1,3 +1,5 @@
+import { formatFromNow, formatWhen, type VenueClock } from './dates'
+
 /**
  * A booking's life, as the product design draws it:
  *
@@ -75,6 +77,46 @@ export const BOOKING_END_REASON_LABELS: Record<BookingEndReason, string> = {
   hold_expired: 'Time to pay ran out',
   checkout_failed: 'Payment service unavailable',
   late_payment_no_seats: 'Paid after the time ran out; seats gone, refunded',
+}
+
+/**
+ * How a booking's end reads to its guest: a heading and a sentence for each end reason, told apart
+ * by whether money was taken. The labels above are the staff's short names for the same reasons.
+ */
+export function bookingEndWords(reason: BookingEndReason, paid: boolean): { title: string, text: string } {
+  switch (reason) {
+    case 'hold_released':
+      return { title: 'Seats given back', text: 'You gave the seats back before paying, so nothing was charged.' }
+    case 'hold_expired':
+      return { title: 'Time to pay ran out', text: 'The time to pay ran out before a payment came through, so the seats went back and nothing was charged.' }
+    case 'checkout_failed':
+      return { title: 'Not booked', text: 'The payment service could not be reached, so the seats were not kept and nothing was charged.' }
+    case 'session_cancelled':
+      return paid
+        ? { title: 'Session cancelled', text: 'The venue has cancelled this session, so your booking is cancelled and your payment refunded in full.' }
+        : { title: 'Session cancelled', text: 'The venue cancelled this session before you paid, so nothing was charged.' }
+    case 'guest_cancelled':
+      return paid
+        ? { title: 'Cancelled', text: 'You cancelled this booking, so your payment is refunded in full.' }
+        : { title: 'Cancelled', text: 'You cancelled this booking. Nothing was paid, so there is nothing to refund.' }
+    case 'late_payment_no_seats':
+      return { title: 'Paid too late', text: 'Your payment arrived after the time to pay had run out and the seats had gone to other guests, so the booking could not go ahead. Your payment is refunded in full.' }
+  }
+}
+
+/** The last instant a guest may cancel a session online: the venue's cut-off before its start. */
+export function cancelDeadline(startsAt: string | Date, cutoffHours: number): Date {
+  return new Date(new Date(startsAt).getTime() - cutoffHours * 3_600_000)
+}
+
+/**
+ * The cut-off of one session in a sentence, as the booking form and the confirmation state it:
+ * "Online cancellation closes at Sat, Oct 3, 2:00 PM EDT, that is in 5 hours." or that it has closed.
+ */
+export function cancelCutoffSentence(deadline: string | Date, clock: VenueClock, now = new Date()): string {
+  const at = new Date(deadline)
+  if (at.getTime() <= now.getTime()) return 'Online cancellation for this session has already closed: this booking cannot be cancelled online.'
+  return `Online cancellation closes at ${formatWhen(at, clock, now)}, that is ${formatFromNow(at, clock, now)}.`
 }
 
 /** Most guests a single booking may bring; larger groups talk to the venue. */

@@ -13,6 +13,7 @@ export interface StoredMail {
   id: number
   receivedAt: string
   from: string
+  replyTo: string
   to: string[]
   subject: string
   text: string
@@ -33,7 +34,7 @@ function page(messages: StoredMail[]): string {
   const rows = [...messages].reverse().map(m => `
     <article>
       <header><strong>${escapeHtml(m.subject)}</strong><span>#${m.id} · ${escapeHtml(m.receivedAt)}</span></header>
-      <p class="meta">to ${escapeHtml(m.to.join(', '))} · from ${escapeHtml(m.from)}${m.attachments.length ? ` · attachments: ${m.attachments.map(a => escapeHtml(a.filename)).join(', ')}` : ''}</p>
+      <p class="meta">to ${escapeHtml(m.to.join(', '))} · from ${escapeHtml(m.from)}${m.replyTo ? ` · reply to ${escapeHtml(m.replyTo)}` : ''}${m.attachments.length ? ` · attachments: ${m.attachments.map(a => escapeHtml(a.filename)).join(', ')}` : ''}${m.html === null ? '' : ` · <a href="/messages/${m.id}/html">as HTML</a>`} · <a href="/messages/${m.id}/raw">source</a></p>
       <pre>${escapeHtml(m.text)}</pre>
     </article>`).join('')
   return `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Larmoir outgoing mail (local)</title>
@@ -47,6 +48,8 @@ function page(messages: StoredMail[]): string {
 export async function startMailFake(opts: { smtpPort: number, httpPort: number, dir: string }): Promise<MailFake> {
   mkdirSync(opts.dir, { recursive: true })
   const messages: StoredMail[] = []
+  /** Each message as it arrived (RFC 5322 source), so a test can parse every part itself. */
+  const raws = new Map<number, Buffer>()
   let nextId = 1
   let fault: MailFault = null
   const held = new Set<NodeJS.Timeout>()
@@ -76,10 +79,12 @@ export async function startMailFake(opts: { smtpPort: number, httpPort: number, 
         const parsed = await simpleParser(raw)
         const id = nextId++
         writeFileSync(resolve(opts.dir, `${String(id).padStart(5, '0')}.eml`), raw)
+        raws.set(id, raw)
         messages.push({
           id,
           receivedAt: new Date().toISOString(),
           from: parsed.from?.text ?? '',
+          replyTo: parsed.replyTo?.text ?? '',
           to: session.envelope.rcptTo.map(r => r.address),
           subject: parsed.subject ?? '',
           text: parsed.text ?? '',
@@ -93,13 +98,25 @@ export async function startMailFake(opts: { smtpPort: number, httpPort: number, 
 
   const http: Server = createServer((req, res) => {
     const url = new URL(req.url ?? '/', 'http://127.0.0.1')
-    if (url.pathname === '/messages' && req.method === 'GET') {
+    const one = /^\/messages\/(\d+)\/(raw|html)$/.exec(url.pathname)
+    if (one && req.method === 'GET') {
+      const id = Number(one[1])
+      const raw = raws.get(id)
+      const html = messages.find(m => m.id === id)?.html
+      if (!raw) res.writeHead(404).end()
+      else if (one[2] === 'raw') res.writeHead(200, { 'content-type': 'message/rfc822' }).end(raw)
+      // The HTML part as a mail program shows it: the parser has turned its cid: images into data: URLs.
+      else if (html) res.writeHead(200, { 'content-type': 'text/html; charset=utf-8' }).end(html)
+      else res.writeHead(404).end()
+    }
+    else if (url.pathname === '/messages' && req.method === 'GET') {
       const to = url.searchParams.get('to')
       const list = to ? messages.filter(m => m.to.includes(to)) : messages
       res.writeHead(200, { 'content-type': 'application/json' }).end(JSON.stringify(list))
     }
     else if (url.pathname === '/messages' && req.method === 'DELETE') {
       messages.length = 0
+      raws.clear()
       res.writeHead(204).end()
     }
     else if (url.pathname === '/__fake/fault' && req.method === 'POST') {

@@ -6,7 +6,7 @@ import type { PublicSession } from '../../shared/types/sessions'
 import type { SeatCount } from '../../shared/seats'
 
 /** A session as guests see it; seats left come from the shared rule (shared/seats.ts). */
-export function publicSessionView(s: TastingSession, flightName: string, count: SeatCount, timeZone: string, now = new Date()): PublicSession {
+function publicSessionView(s: TastingSession, flightName: string, count: SeatCount, timeZone: string, now = new Date()): PublicSession {
   const closesAt = new Date(s.startsAt.getTime() - s.bookingCutoffMinutes * 60_000)
   const { seatsLeft } = count
   const open = s.status === 'open' && now < closesAt

@@ -84,7 +84,7 @@ async function queueReminders(): Promise<number> {
       const { booking, session } = await lockBookingWithSession(tx, id)
       if (booking.state !== 'confirmed' || booking.reminderSentAt) return false
       await tx.update(b).set({ reminderSentAt: new Date() }).where(and(eq(b.id, id), isNull(b.reminderSentAt)))
-      await queueMail(tx, reminderEmail(await bookingMailContext(venue, booking, session)))
+      await queueMail(tx, await reminderEmail(await bookingMailContext(venue, booking, session)))
       return true
     })
     if (sent) queued++

@@ -1,5 +1,6 @@
 import type { Venue } from '../db/schema/venues'
 import type { MailMessage } from './mail'
+import { renderEmail } from './emailLayout'
 
 const hoursText = (ms: number) => {
   const h = Math.round(ms / 3_600_000)
@@ -7,38 +8,39 @@ const hoursText = (ms: number) => {
 }
 
 export function invitationEmail(opts: { venue: Venue, to: string, name: string, role: string, link: string, ttlMs: number, invitedBy: string }): MailMessage {
+  const subject = `You're invited to ${opts.venue.name} on Larmoir`
   return {
     to: opts.to,
-    subject: `You're invited to ${opts.venue.name} on Larmoir`,
-    text: [
-      `Hello ${opts.name},`,
-      '',
-      `${opts.invitedBy} has added you to ${opts.venue.name} as ${opts.role}.`,
-      'Choose your password with this link to finish setting up your account:',
-      '',
-      opts.link,
-      '',
-      `The link works once and expires in ${hoursText(opts.ttlMs)}. If it has expired, ask for a new invitation.`,
-      '',
-      `${opts.venue.name}, ${opts.venue.address}`,
-    ].join('\n'),
+    subject,
+    ...renderEmail({
+      venue: opts.venue,
+      subject,
+      heading: 'You\'re invited',
+      greeting: `Hello ${opts.name},`,
+      blocks: [
+        { kind: 'text', text: `${opts.invitedBy} has added you to ${opts.venue.name} as ${opts.role}. Choose your password with this link to finish setting up your account.` },
+        { kind: 'action', label: 'Choose your password', href: opts.link },
+        { kind: 'text', text: `The link works once and expires in ${hoursText(opts.ttlMs)}. If it has expired, ask for a new invitation.` },
+      ],
+    }),
   }
 }
 
 export function passwordResetEmail(opts: { venue: Venue, to: string, name: string, link: string, ttlMs: number }): MailMessage {
+  const subject = `Reset your ${opts.venue.name} password`
   return {
     to: opts.to,
-    subject: `Reset your ${opts.venue.name} password`,
-    text: [
-      `Hello ${opts.name},`,
-      '',
-      'Someone (we hope you) asked to reset the password of your account. Choose a new one here:',
-      '',
-      opts.link,
-      '',
-      `The link works once and expires in ${hoursText(opts.ttlMs)}. If you did not ask for it, ignore this message: your password stays as it is.`,
-      '',
-      `${opts.venue.name}, ${opts.venue.address}`,
-    ].join('\n'),
+    subject,
+    ...renderEmail({
+      venue: opts.venue,
+      subject,
+      heading: 'Reset your password',
+      greeting: `Hello ${opts.name},`,
+      blocks: [
+        { kind: 'text', text: 'Someone (we hope you) asked to reset the password of your account. Choose a new one with this link.' },
+        { kind: 'action', label: 'Choose a new password', href: opts.link },
+        { kind: 'text', text: `The link works once and expires in ${hoursText(opts.ttlMs)}. If you did not ask for it, ignore this message: your password stays as it is.` },
+      ],
+    }),
   }
 }

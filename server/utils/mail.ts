@@ -2,11 +2,13 @@ import nodemailer, { type Transporter } from 'nodemailer'
 import { and, eq, lte, asc } from 'drizzle-orm'
 import type { OutboxAttachment } from '../db/schema/mail'
 
+/** An e-mail as the app writes it: a plain-text and an HTML version of the same message (multipart/alternative). */
 export interface MailMessage {
   to: string
   subject: string
   text: string
-  html?: string
+  html: string
+  /** Files, and the images the HTML shows inline (those with a `cid`). */
   attachments?: OutboxAttachment[]
 }
 
@@ -38,7 +40,7 @@ export async function queueMail(tx: Tx, message: MailMessage): Promise<void> {
     toAddress: message.to,
     subject: message.subject,
     textBody: message.text,
-    htmlBody: message.html ?? null,
+    htmlBody: message.html,
     attachments: message.attachments ?? null,
     nextAttemptAt: new Date(),
   })
@@ -57,22 +59,37 @@ export function kickOutbox(): void {
   flushOutbox().catch(err => console.error('[mail] flush failed:', (err as Error).message))
 }
 
+/** The address part of a configured sender, "Larmoir <no-reply@larmoir.test>" → "no-reply@larmoir.test". */
+function senderAddress(from: string): string {
+  return /<([^<>]+)>\s*$/.exec(from)?.[1]?.trim() ?? from.trim()
+}
+
 async function sendDue(): Promise<number> {
   const db = useDb()
   const { smtp } = useRuntimeConfig()
   const due = await db.select().from(tables.outbox)
     .where(and(eq(tables.outbox.status, 'pending'), lte(tables.outbox.nextAttemptAt, new Date())))
     .orderBy(asc(tables.outbox.id)).limit(50)
+  if (!due.length) return 0
+  // Mail goes out in the venue's name from the configured sender address (which the mail server
+  // allows to send); replies go to the venue's own address when it has one.
+  const venue = await getVenue()
+  const from = { name: venue.name, address: senderAddress(smtp.from) }
+  const replyTo = venue.email ? { name: venue.name, address: venue.email } : undefined
   let sent = 0
   for (const m of due) {
     try {
       await useTransport().sendMail({
-        from: smtp.from,
+        from,
+        replyTo,
         to: m.toAddress,
         subject: m.subject,
         text: m.textBody,
         html: m.htmlBody ?? undefined,
-        attachments: (m.attachments ?? []).map(a => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, 'base64') })),
+        attachments: (m.attachments ?? []).map(a => ({
+          filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, 'base64'),
+          ...(a.cid ? { cid: a.cid, contentDisposition: 'inline' as const } : {}),
+        })),
       })
       await db.update(tables.outbox).set({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lastError: null }).where(eq(tables.outbox.id, m.id))
       sent++

@@ -62,7 +62,8 @@ export async function processStripeEvent(event: Stripe.Event, rawBody: Buffer | 
     else if (event.type === 'checkout.session.expired') {
       const { booking } = await lockBookingWithSession(tx, bookingId)
       if (booking.state === 'held') {
-        await moveBooking(tx, booking, 'expire', { expiredAt: new Date(), endReason: 'hold_expired' })
+        // A payment page we closed ourselves carries the reason we wrote first (endBookingHold).
+        await moveBooking(tx, booking, 'expire', { expiredAt: new Date(), endReason: booking.endReason ?? 'hold_expired' })
         outcome = 'hold expired, seats released'
       }
       else outcome = `nothing to do: booking is ${booking.state}`

@@ -2,7 +2,7 @@ import { z } from './zod'
 import { emailField, isoDateField, personNameField } from './common'
 import { PARTY_MAX } from '../bookings'
 
-export const phoneField = z.string({ error: 'Enter a phone number.' }).trim()
+const phoneField = z.string({ error: 'Enter a phone number.' }).trim()
   .max(30, { error: 'That phone number is too long.' })
   .regex(/^\+?[0-9 ().-]+$/, { error: 'Use digits, spaces, + ( ) - and . only.' })
   .refine(s => s.replace(/\D/g, '').length >= 6, { error: 'Enter a phone number the venue can call on the day.' })
@@ -20,7 +20,11 @@ export const bookingCreateSchema = z.object({
   ageConfirmed: z.boolean({ error: 'Confirm that everyone in your party is of legal drinking age and will bring photo ID.' })
     .refine(v => v, { error: 'Confirm that everyone in your party is of legal drinking age and will bring photo ID.' }),
 })
-export type BookingCreateInput = z.input<typeof bookingCreateSchema>
+
+/** A guest's own bookings, optionally of one session (the booking form looks for a live hold there). */
+export const bookingListQuerySchema = z.object({
+  sessionId: z.coerce.number({ error: 'The session id must be a number.' }).int({ error: 'The session id must be a whole number.' }).positive({ error: 'The session id must be positive.' }).optional(),
+})
 
 /** The manager's bookings view and the CSV export: dates are the venue's calendar days. */
 export const bookingReportQuerySchema = z.object({
@@ -28,7 +32,3 @@ export const bookingReportQuerySchema = z.object({
   to: isoDateField.optional(),
   flightId: z.coerce.number({ error: 'flightId must be a number.' }).int({ error: 'flightId must be a whole number.' }).positive({ error: 'flightId must be positive.' }).optional(),
 }).refine(q => !q.from || !q.to || q.from <= q.to, { error: 'The end date must not be before the start date.', path: ['to'] })
-
-export const sessionIdParam = z.object({
-  sessionId: z.coerce.number({ error: 'The session id must be a number.' }).int({ error: 'The session id must be a whole number.' }).positive({ error: 'The session id must be positive.' }),
-})

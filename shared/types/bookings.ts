@@ -12,6 +12,7 @@ export interface BookingView {
   contactName: string
   contactEmail: string
   contactPhone: string
+  notes: string | null
   unitPriceMinor: number
   amountMinor: number
   amountPaidMinor: number
@@ -39,5 +40,11 @@ export interface BookingView {
   }
 }
 
-/** A new hold and where to pay for it (POST /api/bookings). */
-export interface BookingCreated { booking: BookingView, checkoutUrl: string }
+/**
+ * A hold and where to pay for it (POST /api/bookings): a new one, or the guest's live hold in that
+ * session found again (`resumed`), never a second.
+ */
+export interface BookingCreated { booking: BookingView, checkoutUrl: string, resumed: boolean }
+
+/** What the booking form starts from when a guest gives back a hold to change it. */
+export type BookingFormStart = Pick<BookingView, 'partySize' | 'contactName' | 'contactEmail' | 'contactPhone'> & { notes: string }

@@ -24,6 +24,8 @@ export interface PublicSession {
 export interface SessionAvailability {
   session: PublicSession
   holdMinutes: number
+  /** The last instant a booking of this session can be cancelled online (the venue's cut-off before the start). */
+  cancelClosesAt: string
   flight: { id: number, name: string, summary: string, pourCount: number, volumeMl: number, ethanolGrams: number, standardDrinks: number }
 }
 

@@ -1,8 +1,14 @@
+import { mkdirSync, writeFileSync } from 'node:fs'
+import { resolve } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
-import type { BrowserContext } from 'playwright-core'
-import { openBrowser, shot, signInThroughForm } from '../support/browser'
-import { uniqueEmail } from '../support/http'
-import { DEMO_PASSWORD } from '../../server/demo/data'
+import type { BrowserContext, Page } from 'playwright-core'
+import { DateTime } from 'luxon'
+import { SHOTS_DIR, openBrowser, shot, signInThroughForm } from '../support/browser'
+import { type Client, uniqueEmail } from '../support/http'
+import { withDb } from '../support/db'
+import { waitForMail } from '../support/mail'
+import { bookingBody, checkoutIdOf, demoFlightId, newGuest, newSession, payCheckout, signedIn, waitForState } from '../support/booking'
+import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
 
 const PHONE = { width: 390, height: 844 } // a common phone viewport in CSS pixels (common practice, no source)
 
@@ -121,5 +127,166 @@ describe('a guest books and pays through the pages', () => {
     await page.getByText(reference).waitFor()
     await shot(page, 'booking-manager-view')
     await manager.close()
+  })
+})
+
+describe('on a phone: going back from the payment page, the cut-off, the sessions list', () => {
+  let phone: { context: BrowserContext, close: () => Promise<void> }
+  let manager: Client
+  const GUEST_PASSWORD = 'guest-password-1' // what newGuest signs up with
+
+  beforeAll(async () => {
+    phone = await openBrowser(PHONE)
+    manager = await signedIn('manager@saltmarsh.test')
+  })
+  afterAll(async () => { await phone.close() })
+
+  /** A new guest signed in on a phone of their own (a browser profile each, so no cookie is shared). */
+  async function guestPage(tag: string): Promise<{ page: Page, guest: Awaited<ReturnType<typeof newGuest>>, close: () => Promise<void> }> {
+    const guest = await newGuest(tag)
+    const browser = await openBrowser(PHONE)
+    const page = await browser.context.newPage()
+    await signInThroughForm(page, guest.email, GUEST_PASSWORD)
+    await page.waitForURL('**/account')
+    return { page, guest, close: browser.close }
+  }
+  const rowsOf = (sessionId: number) => withDb(async (c) => {
+    const [rows] = await c.query('SELECT id, state, party_size AS partySize FROM bookings WHERE session_id = ?', [sessionId])
+    return rows as { id: number, state: string, partySize: number }[]
+  })
+
+  it('Back from the payment page resumes the same hold: party, phone, time to pay, and "Continue paying" opens the same checkout', { timeout: 90_000 }, async () => {
+    const session = await newSession(manager, { seats: 6 })
+    const { page, guest, close } = await guestPage('back-resume')
+    await page.goto(`/book/${session.id}`)
+    await page.getByRole('heading', { name: 'Book your seats' }).waitFor()
+    await page.getByLabel('Guests in your party').selectOption('3')
+    await page.getByLabel('Phone').fill('+1 207 555 0177')
+    await page.getByLabel(/Everyone in my party is 21 or older/).check()
+    await page.getByRole('button', { name: /Continue to payment/ }).click()
+    await page.waitForURL(`${inject('stripeUrl')}/pay/**`)
+    await page.getByRole('heading', { name: 'Card details' }).waitFor()
+    const checkoutUrl = page.url()
+
+    await page.goBack()
+    await page.waitForURL(`**/book/${session.id}`)
+    const held = page.getByRole('region', { name: /Your seats are held/ })
+    await held.waitFor()
+    await expect.poll(() => held.innerText()).toMatch(/3 guests/)
+    expect(await held.innerText()).toContain('+1 207 555 0177')
+    expect(await held.innerText()).toContain(guest.email)
+    expect(await held.innerText()).toMatch(/\d+ minutes? left to pay/)
+    expect(await page.getByRole('button', { name: /Continue to payment/ }).count()).toBe(0)
+    // The aside counts this hold among the seats taken: 3 of 6 left, not the 6 of before.
+    await expect.poll(() => page.getByText('3 of 6').count()).toBe(1)
+    await shot(page, 'booking-resumed-hold-phone')
+    expect(await rowsOf(session.id)).toHaveLength(1)
+
+    await page.getByRole('link', { name: /Continue paying/ }).click()
+    await page.waitForURL(`${inject('stripeUrl')}/pay/**`)
+    expect(page.url()).toBe(checkoutUrl)
+    expect(await rowsOf(session.id)).toHaveLength(1)
+
+    // Back once more, then change the booking: the seats go back and the form opens with what was typed.
+    await page.goBack()
+    await held.waitFor()
+    await page.getByRole('button', { name: /Change the booking/ }).click()
+    await page.getByRole('button', { name: /Continue to payment/ }).waitFor()
+    expect(await page.getByLabel('Guests in your party').inputValue()).toBe('3')
+    expect(await page.getByLabel('Phone').inputValue()).toBe('+1 207 555 0177')
+    await expect.poll(() => page.getByText('6 of 6').count()).toBe(1)
+    expect((await rowsOf(session.id)).map(r => r.state)).toEqual(['expired'])
+    await close()
+  })
+
+  it('a page the browser restores from its back-forward cache looks again: no stale seats, no stale form', { timeout: 60_000 }, async () => {
+    const session = await newSession(manager, { seats: 6 })
+    const { page, guest, close } = await guestPage('bfcache')
+    await page.goto(`/book/${session.id}`)
+    await page.getByRole('button', { name: /Continue to payment/ }).waitFor()
+    expect(await page.getByText('6 of 6').count()).toBe(1)
+    // Meanwhile, in another tab, the same guest holds 2 seats of this session.
+    const res = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    expect(res.status).toBe(201)
+    // The event a restored page gets (HTML Living Standard, "pageshow" with persisted = true).
+    await page.evaluate(() => window.dispatchEvent(new PageTransitionEvent('pageshow', { persisted: true })))
+    await page.getByRole('region', { name: /Your seats are held/ }).waitFor()
+    await expect.poll(() => page.getByText('4 of 6').count()).toBe(1)
+    await close()
+  })
+
+  it('"Give the seats back" ends with the guest\'s own reason and nothing charged', { timeout: 60_000 }, async () => {
+    const session = await newSession(manager, { seats: 6 })
+    const { page, guest, close } = await guestPage('gives-back-page')
+    const res = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    await page.goto(`/bookings/${res.body.booking.id}`)
+    await page.getByRole('button', { name: 'Give the seats back' }).click()
+    await page.getByText('You gave the seats back before paying, so nothing was charged.').waitFor()
+    expect(await page.getByText(/not paid for in time/).count()).toBe(0)
+    await shot(page, 'booking-seats-given-back-phone')
+    await close()
+  })
+
+  it('states the cut-off of this session before paying: when it closes, or that it has closed, with the venue to contact', { timeout: 60_000 }, async () => {
+    const later = await newSession(manager, { hoursAhead: DEMO_VENUE.cancellationCutoffHours + 5 })
+    const soon = await newSession(manager, { hoursAhead: 5 })
+    const { page, close } = await guestPage('cutoff-shown')
+    await page.goto(`/book/${later.id}`)
+    const cut = DateTime.fromISO(later.startsAt).minus({ hours: DEMO_VENUE.cancellationCutoffHours }).setZone(DEMO_VENUE.timeZone).setLocale('en-US')
+    const total = page.locator('[data-total-panel]')
+    await expect.poll(() => total.innerText()).toMatch(new RegExp(`Online cancellation closes at ${cut.toFormat('ccc, LLL d')}, ${cut.toFormat('h:mm a').replace(/\s/g, '\\s')} E[DS]T, that is in [56] hours\\.`))
+    await page.getByLabel('Guests in your party').selectOption('2')
+    await shot(page, 'booking-form-cutoff-open-phone')
+    await total.screenshot({ path: resolve(SHOTS_DIR, 'booking-form-cutoff-open-total.png') })
+
+    await page.goto(`/book/${soon.id}`)
+    await expect.poll(() => total.innerText()).toContain('Online cancellation for this session has already closed: this booking cannot be cancelled online.')
+    expect(await total.innerText()).toContain(DEMO_VENUE.phone)
+    expect(await total.innerText()).toContain(DEMO_VENUE.email)
+    await shot(page, 'booking-form-cutoff-closed-phone')
+    await total.screenshot({ path: resolve(SHOTS_DIR, 'booking-form-cutoff-closed-total.png') })
+    await close()
+  })
+
+  it('the flight page shows more dates on request, and no "no sessions" line while there are some', { timeout: 60_000 }, async () => {
+    for (let i = 0; i < 5; i++) await newSession(manager, { hoursAhead: 24 * (20 + i) })
+    const page = await phone.context.newPage()
+    await page.goto(`/flights/${await demoFlightId()}`)
+    const list = page.getByRole('complementary').getByRole('listitem')
+    await page.getByRole('heading', { name: 'Next sessions' }).waitFor()
+    expect(await list.count()).toBe(4)
+    const more = page.getByRole('button', { name: /^Show \d+ more dates?$/ })
+    const hidden = Number(/\d+/.exec(await more.innerText())![0])
+    expect(hidden).toBeGreaterThanOrEqual(5)
+    await more.click()
+    await expect.poll(() => list.count()).toBe(4 + hidden)
+    expect(await more.count()).toBe(0)
+    expect(await page.getByText('No sessions are open for booking right now.').count()).toBe(0)
+    await page.close()
+  })
+
+  it('the confirmation e-mail, as a mail program shows it', { timeout: 60_000 }, async () => {
+    const session = await newSession(manager, { hoursAhead: DEMO_VENUE.cancellationCutoffHours + 30 })
+    const guest = await newGuest('mail-shown')
+    const res = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    expect((await payCheckout(checkoutIdOf(res.body.checkoutUrl))).status).toBe(200)
+    await waitForState(res.body.booking.id, 'confirmed')
+    const mail = await waitForMail(guest.email, /Booking confirmed/)
+    // The fake's HTML view: the part as received, its cid: image turned into a data: URL by the parser.
+    const html = await (await fetch(`${inject('mailUrl')}/messages/${mail.id}/html`)).text()
+    const dir = resolve(SHOTS_DIR, '../mail')
+    mkdirSync(dir, { recursive: true })
+    const file = resolve(dir, 'confirmation.html')
+    writeFileSync(file, html)
+    for (const [name, viewport] of [['booking-email-confirmation-phone', PHONE], ['booking-email-confirmation-desktop', { width: 1000, height: 900 }]] as const) {
+      const viewer = await openBrowser(viewport)
+      const page = await viewer.context.newPage()
+      await page.goto(`file://${file}`)
+      await page.getByText(res.body.booking.reference).first().waitFor()
+      const qr = page.locator('img[alt*="QR"]')
+      expect(await qr.evaluate(img => (img as HTMLImageElement).naturalWidth)).toBeGreaterThan(100)
+      await shot(page, name)
+      await viewer.close()
+    }
   })
 })

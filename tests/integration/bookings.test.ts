@@ -274,13 +274,17 @@ describe('what the booking form must get right', () => {
   })
 
   it('lets one guest keep at most three unpaid holds at a time', async () => {
-    const session = await newSession(manager, { seats: 10 })
+    const sessions = [await newSession(manager, { seats: 10 }), await newSession(manager, { seats: 10 }), await newSession(manager, { seats: 10 })]
+    const fourthSession = await newSession(manager, { seats: 10 })
     const guest = await newGuest('hoarder')
-    for (let i = 0; i < 3; i++) expect((await guest.client.post('/api/bookings', bookingBody(session.id, guest, 1))).status).toBe(201)
-    const fourth = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 1))
+    for (const s of sessions) expect((await guest.client.post('/api/bookings', bookingBody(s.id, guest, 1))).status).toBe(201)
+    const fourth = await guest.client.post('/api/bookings', bookingBody(fourthSession.id, guest, 1))
     expect(fourth.status).toBe(409)
     expect(fourth.body.message).toMatch(/already have 3 bookings waiting for payment/)
-    expect(await seatsLeft(session.id)).toBe(7)
+    expect(await seatsLeft(fourthSession.id)).toBe(10)
+    // Asking again for a session it already holds is no new hold: the limit does not stand in the way.
+    const again = await guest.client.post('/api/bookings', bookingBody(sessions[0]!.id, guest, 1))
+    expect(again.status).toBe(200)
   })
 
   it('refuses a session past its booking cut-off', async () => {
@@ -289,6 +293,82 @@ describe('what the booking form must get right', () => {
     const res = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 1))
     expect(res.status).toBe(409)
     expect(res.body.message).toMatch(/closed 240 minutes before/)
+  })
+})
+
+describe('asking again for a session the guest already holds', () => {
+  const holdsOf = (sessionId: number, email: string) => withDb(async (c) => {
+    const [rows] = await c.query('SELECT b.id, b.state FROM bookings b JOIN users u ON u.id = b.user_id WHERE b.session_id = ? AND u.email = ?', [sessionId, email])
+    return rows as { id: number, state: string }[]
+  })
+
+  it('answers with the live hold and its payment page: one booking, one set of seats', async () => {
+    const session = await newSession(manager, { seats: 6 })
+    const guest = await newGuest('twice')
+    const first = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    expect(first.status).toBe(201)
+    const second = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    expect(second.status).toBe(200)
+    expect(second.body.booking.id).toBe(first.body.booking.id)
+    expect(second.body.checkoutUrl).toBe(first.body.checkoutUrl)
+    expect(second.body.resumed).toBe(true)
+    expect(first.body.resumed).toBe(false)
+    expect(await holdsOf(session.id, guest.email)).toEqual([{ id: first.body.booking.id, state: 'held' }])
+    expect(await seatsLeft(session.id)).toBe(4)
+    // Two at once for a session not yet held (a double tap) end the same way: one hold, one payment page.
+    const other = await newSession(manager, { seats: 6 })
+    const both = await Promise.all([0, 1].map(() => guest.client.post('/api/bookings', bookingBody(other.id, guest, 2))))
+    expect(both.map(r => r.status).sort()).toEqual([200, 201])
+    expect(both[0]!.body.booking.id).toBe(both[1]!.body.booking.id)
+    expect(both[0]!.body.checkoutUrl).toBe(both[1]!.body.checkoutUrl)
+    expect(await holdsOf(other.id, guest.email)).toHaveLength(1)
+  })
+
+  it('a different party size is a 409 that names the hold; after giving it back a new one is made', async () => {
+    const session = await newSession(manager, { seats: 6 })
+    const guest = await newGuest('twice-other-size')
+    const first = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    const bigger = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 3))
+    expect(bigger.status).toBe(409)
+    expect(bigger.body.message).toMatch(/already holding 2 seats/)
+    expect(bigger.body.data.booking.id).toBe(first.body.booking.id)
+    expect(await holdsOf(session.id, guest.email)).toHaveLength(1)
+    expect((await guest.client.post(`/api/bookings/${first.body.booking.id}/release`)).status).toBe(200)
+    const again = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 3))
+    expect(again.status).toBe(201)
+    expect(again.body.booking.id).not.toBe(first.body.booking.id)
+    expect(await seatsLeft(session.id)).toBe(3)
+  })
+
+  it('the booking page is never stored, so Back from the payment page asks the server again', async () => {
+    const session = await newSession(manager)
+    const guest = await newGuest('no-store')
+    const page = await guest.client.raw(`/book/${session.id}`)
+    expect(page.status).toBe(200)
+    expect(page.headers.get('cache-control')).toBe('no-store') // RFC 9111 §5.2.2.5: no part of the response is stored
+  })
+
+  it('a hold whose time ran out is not resumed', async () => {
+    const session = await newSession(manager, { seats: 6 })
+    const guest = await newGuest('twice-ran-out')
+    const first = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    await withDb(c => c.query('UPDATE bookings SET hold_expires_at = ? WHERE id = ?', [new Date(Date.now() - 1000), first.body.booking.id]))
+    const again = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
+    expect(again.status).toBe(201)
+    expect(again.body.booking.id).not.toBe(first.body.booking.id)
+  })
+
+  it('the guest\'s bookings can be read for one session (the booking page looks for a live hold there)', async () => {
+    const [a, b] = [await newSession(manager), await newSession(manager)]
+    const guest = await newGuest('per-session')
+    const onA = await guest.client.post('/api/bookings', bookingBody(a.id, guest, 2))
+    await guest.client.post('/api/bookings', bookingBody(b.id, guest, 1))
+    const list = await guest.client.get(`/api/bookings?sessionId=${a.id}`)
+    expect(list.status).toBe(200)
+    expect(list.body.map((x: { id: number }) => x.id)).toEqual([onA.body.booking.id])
+    expect(list.body[0]).toMatchObject({ state: 'held', canRelease: true, partySize: 2, contactPhone: '+1 207 555 0100' })
+    expect((await guest.client.get('/api/bookings')).body).toHaveLength(2)
+    expect((await guest.client.get('/api/bookings?sessionId=x')).status).toBe(400)
   })
 })
 
@@ -336,6 +416,9 @@ describe('my bookings', () => {
     const res = await guest.client.post(`/api/bookings/${paid.id}/cancel`)
     expect(res.status).toBe(409)
     expect(res.body.message).toMatch(/up to 24 hours before the start/)
+    // Told to contact the venue, the guest is given its phone and e-mail.
+    expect(res.body.message).toContain(DEMO_VENUE.phone)
+    expect(res.body.message).toContain(DEMO_VENUE.email)
     expect((await bookingRow(paid.id)).state).toBe('confirmed')
     expect((await guest.client.get(`/api/bookings/${paid.id}`)).body.canCancel).toBe(false)
   })
@@ -347,7 +430,7 @@ describe('my bookings', () => {
     expect((await guest.client.post(`/api/bookings/${res.body.booking.id}/cancel`)).status).toBe(409)
     const released = await guest.client.post(`/api/bookings/${res.body.booking.id}/release`)
     expect(released.status).toBe(200)
-    expect(released.body).toMatchObject({ state: 'expired', canRelease: false })
+    expect(released.body).toMatchObject({ state: 'expired', canRelease: false, endReason: 'hold_released' })
     expect(await seatsLeft(session.id)).toBe(2)
     expect((await fakeStripe().checkout.sessions.retrieve(checkoutIdOf(res.body.checkoutUrl))).status).toBe('expired')
   })

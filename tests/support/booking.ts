@@ -81,10 +81,6 @@ export async function demoFlightId(): Promise<number> {
 }
 
 /**
- * A fresh session of the demo flight (or `flightId`) starting `hoursAhead` from now (venue time, to
- * the minute), so a test owns every seat in it.
- */
-/**
  * A session of the demo flight. A flight cannot start twice at the same instant (a unique index),
  * and every test file adds sessions to the same database, so the start is spread: by default over
  * a few days around nine days ahead; with `hoursAhead`, over the following hour, trying another

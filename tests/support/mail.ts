@@ -1,4 +1,5 @@
 import { inject } from 'vitest'
+import { simpleParser, type ParsedMail } from 'mailparser'
 import type { StoredMail } from '../../scripts/fakes/mail'
 
 /** Waits until the e-mail fake holds `count` messages to `to` whose subject matches, and returns it. */
@@ -32,4 +33,20 @@ export function linkUrl(mail: StoredMail, path: string): string {
   const m = mail.text.match(new RegExp(`https?://[^\\s/]+${path.replace('/', '\\/')}\\?token=[\\w-]{43}`))
   if (!m) throw new Error(`no ${path} link in the e-mail`)
   return m[0]
+}
+
+/** The caught message's source (RFC 5322), exactly as the app sent it. */
+export async function rawMail(mail: StoredMail): Promise<string> {
+  const res = await fetch(`${inject('mailUrl')}/messages/${mail.id}/raw`)
+  if (res.status !== 200) throw new Error(`the mail fake has no source for message ${mail.id}: ${res.status}`)
+  return res.text()
+}
+
+/**
+ * The caught message parsed from its source, every part as sent: `html` keeps its `cid:` links
+ * (the parser would otherwise turn them into data: URLs), and `attachments` holds the inline
+ * images with their content ids beside the files.
+ */
+export async function parseMail(mail: StoredMail): Promise<ParsedMail> {
+  return simpleParser(await rawMail(mail), { keepCidLinks: true })
 }

@@ -1,11 +1,14 @@
 import { bookingCreateSchema } from '../../../shared/schemas/bookings'
 import type { BookingCreated } from '../../../shared/types/bookings'
 
-/** Holds seats for a signed-in guest and answers with the payment page to send them to. */
+/**
+ * Holds seats for a signed-in guest and answers with the payment page to send them to: 201 for a
+ * new hold, 200 with the guest's live hold when they already have one in this session.
+ */
 export default defineEventHandler(async (event): Promise<BookingCreated> => {
   const user = await requireRole(event, 'guest')
   const input = await readBodyAs(event, bookingCreateSchema)
-  const { booking, checkoutUrl } = await createBookingHold(user, input)
-  setResponseStatus(event, 201)
-  return { booking: await loadGuestBooking(user.id, booking.id), checkoutUrl }
+  const { booking, checkoutUrl, resumed } = await createBookingHold(user, input)
+  setResponseStatus(event, resumed ? 200 : 201)
+  return { booking: await loadGuestBooking(user.id, booking.id), checkoutUrl, resumed }
 })

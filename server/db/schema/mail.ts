@@ -1,7 +1,11 @@
 import { mysqlTable, int, varchar, text, mysqlEnum, json, index } from 'drizzle-orm/mysql-core'
 import { timestamps, utcDatetime } from './common'
 
-export interface OutboxAttachment { filename: string, contentType: string, contentBase64: string }
+/**
+ * A file of a queued e-mail. With a `cid` it is an image the HTML shows inline (`<img src="cid:…">`,
+ * RFC 2392) rather than a file to download.
+ */
+export interface OutboxAttachment { filename: string, contentType: string, contentBase64: string, cid?: string }
 
 /**
  * Every e-mail is written here first, in the same transaction as the change it reports, then

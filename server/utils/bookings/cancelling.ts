@@ -4,11 +4,11 @@ import type { TastingSession } from '../../db/schema/sessions'
 import type { Venue } from '../../db/schema/venues'
 import type { MailMessage } from '../mail'
 import type { CurrentUser } from '../auth'
-import { BOOKING_STATE_LABELS, canTransition } from '../../../shared/bookings'
+import { BOOKING_STATE_LABELS, canTransition, cancelDeadline } from '../../../shared/bookings'
+import { venueContactText } from '../../../shared/venueContact'
 
 /** Cancellation cut-off of the venue: the last instant a guest may cancel online. */
-export const bookingCancelDeadline = (venue: Venue, session: Pick<TastingSession, 'startsAt'>) =>
-  new Date(session.startsAt.getTime() - venue.cancellationCutoffHours * 3_600_000)
+export const bookingCancelDeadline = (venue: Venue, session: Pick<TastingSession, 'startsAt'>) => cancelDeadline(session.startsAt, venue.cancellationCutoffHours)
 
 /** A guest cancels their own paid booking before the cut-off; the refund follows at once. */
 export async function cancelByGuest(user: CurrentUser, bookingId: number): Promise<void> {
@@ -22,7 +22,7 @@ export async function cancelByGuest(user: CurrentUser, bookingId: number): Promi
     if (!canTransition(booking.state, 'cancel')) conflict(`This booking is ${BOOKING_STATE_LABELS[booking.state].toLowerCase()}; it cannot be cancelled.`)
     const deadline = bookingCancelDeadline(venue, session)
     if (Date.now() >= deadline.getTime()) {
-      conflict(`Bookings can be cancelled online up to ${venue.cancellationCutoffHours} hours before the start; for this session that was ${mailVenueTime(deadline, venue.timeZone)}. Please contact ${venue.name}, ${venue.address}.`)
+      conflict(`Bookings can be cancelled online up to ${venue.cancellationCutoffHours} hours before the start; for this session that was ${mailVenueTime(deadline, venue)}. To change or cancel, please contact ${venueContactText(venue)}.`)
     }
     const cancelled = await moveBooking(tx, booking, 'cancel', { cancelledAt: new Date(), endReason: 'guest_cancelled' })
     await queueMail(tx, cancellationEmail(await bookingMailContext(venue, cancelled, session), 'guest'))

@@ -1,5 +1,5 @@
 // The booking rules, part 2: holding seats and opening the Checkout Session for them.
-import { and, eq, gt, sql } from 'drizzle-orm'
+import { and, desc, eq, gt, sql } from 'drizzle-orm'
 import { DateTime } from 'luxon'
 import type { Booking } from '../../db/schema/bookings'
 import type { TastingSession } from '../../db/schema/sessions'
@@ -8,24 +8,34 @@ import type { CurrentUser } from '../auth'
 import type { z } from 'zod'
 import type { bookingCreateSchema } from '../../../shared/schemas/bookings'
 import { ageOn } from '../../../shared/schemas/auth'
+import { venueContactText } from '../../../shared/venueContact'
 
 /** Unpaid holds one guest may keep open at once, so that nobody can sit on a venue's seats. */
 const LIVE_HOLDS_PER_GUEST = 3
 
 type BookingInput = z.output<typeof bookingCreateSchema>
 
+/** How long a second request for the same hold waits for the first to open its payment page. */
+const CHECKOUT_WAIT_MS = 10_000
+
+export interface BookingHold { booking: Booking, checkoutUrl: string, resumed: boolean }
+
 /**
  * Holds seats and opens a Checkout Session. One transaction locks the session row, releases its
  * run-out holds, counts the seats still taken and inserts the hold; the payment provider is called
  * only after it commits. If that call fails the hold is released and the guest gets a 503.
+ *
+ * A guest who already holds seats in the session (back from the payment page, a second tap,
+ * another tab) is answered with that hold and its payment page, never a second hold: the check
+ * runs under the same session lock, so two requests at once cannot both insert.
  */
-export async function createBookingHold(user: CurrentUser, input: BookingInput): Promise<{ booking: Booking, checkoutUrl: string }> {
+export async function createBookingHold(user: CurrentUser, input: BookingInput): Promise<BookingHold> {
   const venue = await getVenue()
   const db = useDb()
   const { booking: cfg } = useRuntimeConfig()
   const [account] = await db.select({ dateOfBirth: tables.users.dateOfBirth }).from(tables.users).where(eq(tables.users.id, user.id))
   if (account?.dateOfBirth && account.dateOfBirth !== input.dateOfBirth) {
-    invalidFields({ dateOfBirth: 'This is not the date of birth on your account. If your account has it wrong, please contact the venue.' })
+    invalidFields({ dateOfBirth: `This is not the date of birth on your account. If your account has it wrong, please contact ${venueContactText(venue)}.` })
   }
   const [pre] = await db.select().from(tables.tastingSessions)
     .where(and(eq(tables.tastingSessions.id, input.sessionId), eq(tables.tastingSessions.venueId, venue.id)))
@@ -36,19 +46,32 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
   }
 
   const now = new Date()
-  const [{ live } = { live: 0 }] = await db.select({ live: sql<number>`count(*)`.mapWith(Number) }).from(tables.bookings)
-    .where(and(eq(tables.bookings.userId, user.id), eq(tables.bookings.state, 'held'), gt(tables.bookings.holdExpiresAt, now)))
-  if (live >= LIVE_HOLDS_PER_GUEST) {
-    conflict(`You already have ${live} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
-  }
   const holdMs = Math.max(1, Number(cfg.holdMinutes)) * 60_000
-  const { booking, staleCheckouts } = await bookingTransaction(async (tx) => {
+  const b = tables.bookings
+  const held = await bookingTransaction(async (tx) => {
     const session = await lockSessionRow(tx, input.sessionId)
+    const [own] = await tx.select().from(b)
+      .where(and(eq(b.sessionId, session.id), eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
+      .orderBy(desc(b.id)).limit(1).for('update')
+    if (own) {
+      if (own.partySize !== input.partySize) {
+        conflict(
+          `You are already holding ${own.partySize} seat${own.partySize === 1 ? '' : 's'} in this session, waiting for payment. Continue paying for them, or give them back to book for a different party.`,
+          { booking: { id: own.id, partySize: own.partySize, checkoutUrl: own.checkoutUrl } },
+        )
+      }
+      return { booking: own, resumed: true, staleCheckouts: [] as string[] }
+    }
     if (session.status === 'cancelled') conflict('This session has been cancelled. Please choose another one.')
     if (session.status !== 'open') conflict('This session is not taking bookings. Please choose another one.')
     const closesAt = session.startsAt.getTime() - session.bookingCutoffMinutes * 60_000
     if (now.getTime() >= closesAt) conflict(`Booking for this session closed ${session.bookingCutoffMinutes} minutes before the start. Please choose another session.`)
 
+    const [{ live } = { live: 0 }] = await tx.select({ live: sql<number>`count(*)`.mapWith(Number) }).from(b)
+      .where(and(eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
+    if (live >= LIVE_HOLDS_PER_GUEST) {
+      conflict(`You already have ${live} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
+    }
     const { count, staleCheckouts } = await lockedSeatCount(tx, session, now)
     const left = count.seatsLeft
     if (input.partySize > left) {
@@ -60,24 +83,26 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
       ageConfirmed: input.ageConfirmed, unitPriceMinor: session.priceMinor, amountMinor: session.priceMinor * input.partySize,
       currency: session.currency, holdExpiresAt: new Date(now.getTime() + holdMs),
     }
-    const [row] = await tx.insert(tables.bookings).values(values).$returningId()
+    const [row] = await tx.insert(b).values(values).$returningId()
     if (!account?.dateOfBirth) await tx.update(tables.users).set({ dateOfBirth: input.dateOfBirth }).where(eq(tables.users.id, user.id))
-    const [booking] = await tx.select().from(tables.bookings).where(eq(tables.bookings.id, row!.id))
-    return { booking: booking!, staleCheckouts }
+    const [booking] = await tx.select().from(b).where(eq(b.id, row!.id))
+    return { booking: booking!, resumed: false, staleCheckouts }
   })
-  void expireCheckoutSessions(staleCheckouts)
+  void expireCheckoutSessions(held.staleCheckouts)
+  const booking = held.booking
+  if (held.resumed) return { booking, checkoutUrl: await paymentPageOf(booking), resumed: true }
 
   const flightName = await flightNameOf(pre.flightId)
   if (booking.amountMinor === 0) {
     // A free session needs no payment: the hold is confirmed at once.
     await confirmBookingPaid(booking.id, { amountPaid: 0, paymentIntentId: null })
-    return { booking, checkoutUrl: appLink(`/bookings/${booking.id}?paid=1`) }
+    return { booking, checkoutUrl: appLink(`/bookings/${booking.id}?paid=1`), resumed: false }
   }
   try {
     const checkout = await openCheckout(venue, booking, pre, flightName)
-    await db.update(tables.bookings).set({ checkoutSessionId: checkout.id, checkoutUrl: checkout.url })
-      .where(and(eq(tables.bookings.id, booking.id), eq(tables.bookings.state, 'held')))
-    return { booking: { ...booking, checkoutSessionId: checkout.id, checkoutUrl: checkout.url }, checkoutUrl: checkout.url! }
+    await db.update(b).set({ checkoutSessionId: checkout.id, checkoutUrl: checkout.url })
+      .where(and(eq(b.id, booking.id), eq(b.state, 'held')))
+    return { booking: { ...booking, checkoutSessionId: checkout.id, checkoutUrl: checkout.url }, checkoutUrl: checkout.url!, resumed: false }
   }
   catch (err) {
     console.error(`[bookings] checkout for booking ${booking.id} failed:`, (err as Error).message)
@@ -85,7 +110,28 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
       const locked = await lockBookingWithSession(tx, booking.id)
       if (locked.booking.state === 'held') await moveBooking(tx, locked.booking, 'expire', { expiredAt: new Date(), endReason: 'checkout_failed' })
     })
-    throw createError({ status: 503, statusText: 'Payment unavailable', message: 'We could not reach the payment service, so nothing was booked and nothing was charged. Please try again in a few minutes.' })
+    throw paymentUnavailable()
+  }
+}
+
+const paymentUnavailable = () => createError({ status: 503, statusText: 'Payment unavailable', message: 'We could not reach the payment service, so nothing was booked and nothing was charged. Please try again in a few minutes.' })
+
+/**
+ * Where to pay for a hold found again. Its payment page may still be in the making (the request
+ * that made the hold is talking to the provider): wait for it a little, rather than open a second.
+ */
+async function paymentPageOf(hold: Booking): Promise<string> {
+  const until = Date.now() + CHECKOUT_WAIT_MS
+  let row: Booking | undefined = hold
+  for (;;) {
+    if (!row) notFound('No such booking.')
+    if (row.state === 'held' && row.checkoutUrl) return row.checkoutUrl
+    if (row.state === 'confirmed') return appLink(`/bookings/${row.id}?paid=1`)
+    if (row.state !== 'held') throw paymentUnavailable()
+    if (Date.now() > until) throw createError({ status: 503, statusText: 'Payment page not ready', message: 'Your seats are held, but their payment page is not ready yet. Please try again in a moment.' })
+    await new Promise(r => setTimeout(r, 200))
+    const [again] = await useDb().select().from(tables.bookings).where(eq(tables.bookings.id, hold.id))
+    row = again
   }
 }
 

@@ -1,5 +1,5 @@
 // The booking rules, part 3: what a payment (or its absence) does to a hold.
-import { eq } from 'drizzle-orm'
+import { and, eq } from 'drizzle-orm'
 import type { Booking } from '../../db/schema/bookings'
 import type { Venue } from '../../db/schema/venues'
 import type { BookingEndReason } from '../../../shared/bookings'
@@ -18,7 +18,8 @@ export async function applyBookingPayment(tx: Tx, venue: Venue, bookingId: numbe
   const now = new Date()
   const facts = { amountPaidMinor: paid.amountPaid, paymentIntentId: paid.paymentIntentId, confirmedAt: now }
   if (booking.state === 'held') {
-    const confirmed = await moveBooking(tx, booking, 'pay', facts)
+    // A hold being ended (its reason already written) that the guest paid for after all is a booking.
+    const confirmed = await moveBooking(tx, booking, 'pay', { ...facts, endReason: null })
     await queueMail(tx, await confirmationEmail(await bookingMailContext(venue, confirmed, session)))
     return { outcome: 'confirmed', refund: false, staleCheckouts: [] }
   }
@@ -47,7 +48,7 @@ export async function confirmBookingPaid(bookingId: number, paid: PaidFacts): Pr
 }
 
 /** Held → expired, with the session row locked; nothing if it is no longer held. */
-export async function releaseBookingHold(bookingId: number, reason: BookingEndReason): Promise<boolean> {
+async function releaseBookingHold(bookingId: number, reason: BookingEndReason): Promise<boolean> {
   return bookingTransaction(async (tx) => {
     const { booking } = await lockBookingWithSession(tx, bookingId)
     if (booking.state !== 'held') return false
@@ -64,6 +65,11 @@ export async function releaseBookingHold(bookingId: number, reason: BookingEndRe
  */
 export async function endBookingHold(booking: Pick<Booking, 'id' | 'checkoutSessionId'>, reason: BookingEndReason): Promise<'released' | 'paid' | 'unchanged'> {
   if (booking.checkoutSessionId && useRuntimeConfig().stripe.secretKey) {
+    // Closing the payment page makes the provider send an expiry event, which may be handled before
+    // the release below: the reason goes on the hold first, so that event ends it with this reason
+    // (a guest giving seats back is not "time ran out"). A payment after all clears it.
+    const b = tables.bookings
+    await useDb().update(b).set({ endReason: reason }).where(and(eq(b.id, booking.id), eq(b.state, 'held')))
     try { await useStripe().checkout.sessions.expire(booking.checkoutSessionId) }
     catch (err) {
       if (isFinalStripeError(err)) {

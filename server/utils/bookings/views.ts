@@ -16,7 +16,7 @@ export async function bookingMailContext(venue: Venue, booking: Booking, session
   return { venue, booking, session, flightName: flightName ?? await flightNameOf(session.flightId) }
 }
 
-export function bookingView(b: Booking, s: TastingSession, flightName: string, venue: Venue, now = new Date()): BookingView {
+function bookingView(b: Booking, s: TastingSession, flightName: string, venue: Venue, now = new Date()): BookingView {
   const deadline = bookingCancelDeadline(venue, s)
   const holdActive = b.state === 'held' && b.holdExpiresAt.getTime() > now.getTime()
   return {
@@ -29,6 +29,7 @@ export function bookingView(b: Booking, s: TastingSession, flightName: string, v
     contactName: b.contactName,
     contactEmail: b.contactEmail,
     contactPhone: b.contactPhone,
+    notes: b.notes,
     unitPriceMinor: b.unitPriceMinor,
     amountMinor: b.amountMinor,
     amountPaidMinor: b.amountPaidMinor,
@@ -57,22 +58,22 @@ export function bookingView(b: Booking, s: TastingSession, flightName: string, v
   }
 }
 
-/** A guest's bookings (newest session first), or one of them; scoped to the owner in the WHERE clause. */
-export async function loadGuestBookings(userId: number, bookingId?: number): Promise<BookingView[]> {
+/** A guest's bookings (newest session first), one session's, or one of them; scoped to the owner in the WHERE clause. */
+export async function loadGuestBookings(userId: number, only: { bookingId?: number, sessionId?: number } = {}): Promise<BookingView[]> {
   const venue = await getVenue()
   const b = tables.bookings
   const rows = await useDb().select({ b, s: tables.tastingSessions, flightName: tables.flights.name })
     .from(b)
     .innerJoin(tables.tastingSessions, eq(tables.tastingSessions.id, b.sessionId))
     .innerJoin(tables.flights, eq(tables.flights.id, tables.tastingSessions.flightId))
-    .where(and(eq(b.userId, userId), bookingId ? eq(b.id, bookingId) : undefined))
+    .where(and(eq(b.userId, userId), only.bookingId ? eq(b.id, only.bookingId) : undefined, only.sessionId ? eq(b.sessionId, only.sessionId) : undefined))
     .orderBy(sql`${tables.tastingSessions.startsAt} desc`, sql`${b.id} desc`)
     .limit(500)
   return rows.map(r => bookingView(r.b, r.s, r.flightName, venue))
 }
 
 export async function loadGuestBooking(userId: number, bookingId: number): Promise<BookingView> {
-  const [view] = await loadGuestBookings(userId, bookingId)
+  const [view] = await loadGuestBookings(userId, { bookingId })
   if (!view) notFound('No such booking.')
   return view
 }

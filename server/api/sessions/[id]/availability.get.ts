@@ -1,5 +1,6 @@
 import { idParam } from '../../../../shared/schemas/common'
 import type { SessionAvailability } from '../../../../shared/types/sessions'
+import { cancelDeadline } from '../../../../shared/bookings'
 
 /**
  * What a guest needs before booking one session: when, price, seats left, whether it can still be
@@ -13,6 +14,7 @@ export default defineEventHandler(async (event): Promise<SessionAvailability> =>
   return {
     session,
     holdMinutes: Number(useRuntimeConfig().booking.holdMinutes),
+    cancelClosesAt: cancelDeadline(session.startsAt, venue.cancellationCutoffHours).toISOString(),
     flight: {
       id: flight.id,
       name: flight.name,
