@@ -8,6 +8,7 @@ import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
 import type { GlassShape } from './glassDiagram'
 import type { FlightCard } from './types/cards'
+import { cautionLines } from './cautions'
 
 export interface CardVenue {
   name: string
@@ -99,7 +100,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
     },
     why: CARD_WHY,
     quality: 'Tears say nothing about quality: they come from alcohol and evaporation. Sugar slows them; it does not make them.',
-    cautions: venue.cautions.split('\n').map(s => s.trim()).filter(Boolean),
+    cautions: cautionLines(venue),
     qrUrl: opts.publicUrl,
   }
 }

@@ -6,6 +6,7 @@ import type { TastingSession } from '../db/schema/sessions'
 import type { MailMessage } from './mail'
 import type { OutboxAttachment } from '../db/schema/mail'
 import { formatMoney } from '../../shared/money'
+import { cautionLines } from '../../shared/cautions'
 
 /** What every booking e-mail needs to say where and when. */
 export interface BookingMailContext {
@@ -63,7 +64,7 @@ async function referenceQrFile(reference: string): Promise<OutboxAttachment> {
 
 export async function confirmationEmail(c: BookingMailContext): Promise<MailMessage> {
   const link = appLink(`/bookings/${c.booking.id}`)
-  const cautions = c.venue.cautions.split('\n').filter(Boolean)
+  const cautions = cautionLines(c.venue)
   return {
     to: c.booking.contactEmail,
     subject: `Booking confirmed: ${c.flightName}, ${mailVenueTime(c.session.startsAt, c.venue.timeZone)}`,
