@@ -24,3 +24,13 @@ export function openingHoursLines(hours: OpeningHours | null | undefined, locale
     return [{ day, hours: spans.map(s => `${localTime(s.opens, locale)} – ${localTime(s.closes, locale)}`).join(', ') }]
   })
 }
+
+/**
+ * A phone number as a tel: link: digits and a leading +. After a country code, the "(0)" that
+ * marks a trunk prefix dialled only from inside the country is left out ("+44 (0)20 7946 0321" →
+ * "tel:+442079460321"; ITU-T E.123 keeps it out of the international form, from memory).
+ */
+export function phoneHref(phone: string): string {
+  const international = phone.trim().startsWith('+')
+  return `tel:${(international ? phone.replace(/\(0\)/g, '') : phone).replace(/[^\d+]/g, '')}`
+}

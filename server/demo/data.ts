@@ -10,6 +10,7 @@ export const DEMO_VENUE = {
   name: 'Saltmarsh & Vine Tasting Room',
   address: '7 Heron Quay, Wrenfield, ME 04999, USA',
   timeZone: 'America/New_York',
+  locale: 'en-US',
   currency: 'USD',
   legalAge: 21,
   volumeUnit: 'floz' as const,
@@ -18,11 +19,11 @@ export const DEMO_VENUE = {
   standardDrinkGrams: 14,
   guestEthanolLimitGrams: 42,
   cancellationCutoffHours: 24,
+  // The venue's own lines only: legal age, driving, pregnancy, medicines and local law are the
+  // fixed block the product prints before them (shared/cautions.ts).
   cautions: [
-    'Please do not drive after your tasting; we are glad to call you a taxi.',
-    'If you are pregnant or may be, we recommend not drinking alcohol.',
-    'You must be of legal drinking age; we check ID at the door.',
-    'Our hosts may decline to serve anyone, following local law and licensed practice.',
+    'Water is on every table: a glass between pours keeps the palate fresh.',
+    'Ask at the bar and we will call you a taxi; the Heron Quay bus stops outside until 10 pm.',
   ].join('\n'),
   // 555-01xx numbers are reserved for fiction (North American Numbering Plan); .test is reserved (RFC 2606).
   phone: '+1 207 555 0143',

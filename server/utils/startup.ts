@@ -15,7 +15,8 @@ const DEFAULT_VENUE = {
   standardDrinkGrams: 14,
   guestEthanolLimitGrams: 42,
   cancellationCutoffHours: 24,
-  cautions: DEMO_VENUE.cautions,
+  /** The fixed block of cautions is always printed (shared/cautions.ts); the venue adds its own lines. */
+  cautions: '',
 }
 
 let ready: Promise<void> | undefined

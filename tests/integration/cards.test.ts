@@ -54,7 +54,7 @@ describe('card data', () => {
     })
     expect(card.totals.standardDrinks).toBeCloseTo(INVENTED.reduce((s, p) => s + p.ml * p.abv / 100 * ETHANOL_G_PER_ML, 0) / 14, 1)
     expect(card.quality).toMatch(/nothing about quality/)
-    expect(card.cautions.join(' ')).toMatch(/drive/)
+    expect(card.cautions.join(' ')).toMatch(/If you are driving, please do not drink/) // the fixed block (shared/cautions.ts) is on every card
     expect(card.qrUrl).toBe(`${inject('appUrl')}/pour/${flightId}`)
     // The sweet tawny's text explains its slower tears by its sugar.
     expect(card.pours[4].lookFor.join(' ')).toMatch(/110 g\/L of sugar/)

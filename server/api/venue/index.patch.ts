@@ -1,7 +1,9 @@
 import { eq } from 'drizzle-orm'
 import { venueSchema } from '../../../shared/schemas/venue'
+import type { PublicVenue } from '../../../shared/types/venue'
 
-export default defineEventHandler(async (event) => {
+/** The manager's venue settings, all at once: checked in full by the form's own schema before one UPDATE. */
+export default defineEventHandler(async (event): Promise<PublicVenue> => {
   await requireRole(event, 'manager')
   const input = await readBodyAs(event, venueSchema)
   const venue = await getVenue()
