@@ -28,7 +28,7 @@ export function fixedCautionLines(venue: Pick<CautionVenue, 'legalAge'>): string
 }
 
 /** The venue's own lines, trimmed, blanks and repeats of the fixed block dropped. */
-export function venueCautionLines(venue: CautionVenue): string[] {
+function venueCautionLines(venue: CautionVenue): string[] {
   const fixed = new Set(fixedCautionLines(venue).map(l => l.toLowerCase()))
   return venue.cautions.split('\n').map(s => s.trim()).filter(s => s && !fixed.has(s.toLowerCase()))
 }
