@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto'
 import { and, asc, eq, inArray } from 'drizzle-orm'
-import { DateTime } from 'luxon'
 import { renderCardsPdf, type CardFonts } from '../cards/cardPdf'
 import { buildFlightCard, type CardPaper } from '../../shared/cards'
 import type { FlightCard } from '../../shared/types/cards'
 import type { Venue } from '../db/schema/venues'
 import type { TastingSession } from '../db/schema/sessions'
+import { formatLongDay, formatTime } from '../../shared/dates'
 
 let fonts: Promise<CardFonts> | undefined
 
@@ -39,7 +39,7 @@ export async function flightCard(venue: Venue, flightId: number, extra: { guestN
  * actually seated), in party order. With `names`, each card says whom it was poured for.
  */
 export async function sessionCards(venue: Venue, session: TastingSession, names: boolean): Promise<FlightCard[]> {
-  const base = await flightCard(venue, session.flightId, { sessionLabel: DateTime.fromJSDate(session.startsAt, { zone: venue.timeZone }).toFormat('ccc d LLL yyyy, HH:mm') })
+  const base = await flightCard(venue, session.flightId, { sessionLabel: `${formatLongDay(session.startsAt, venue)}, ${formatTime(session.startsAt, venue)}` })
   const parties = await useDb().select({ b: tables.bookings, c: tables.checkIns }).from(tables.bookings)
     .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, tables.bookings.id))
     .where(and(eq(tables.bookings.sessionId, session.id), inArray(tables.bookings.state, ['confirmed', 'checked_in'])))

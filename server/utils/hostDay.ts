@@ -6,7 +6,7 @@ import type { CheckIn } from '../db/schema/checkins'
 import type { TastingSession } from '../db/schema/sessions'
 import type { Venue } from '../db/schema/venues'
 import { BOOKING_HISTORY_LABELS, BOOKING_STATE_LABELS, type BookingHistoryEvent } from '../../shared/bookings'
-import { formatDayTime, formatTime } from '../../shared/dates'
+import { formatDay, formatDayTime, formatTime } from '../../shared/dates'
 import type { HostDay, HostHistoryStep, HostParty, HostPartyFound } from '../../shared/types/host'
 import { countSeats, doorTiles, seatFactOf, type DoorOutcome } from '../../shared/seats'
 
@@ -219,6 +219,6 @@ export function assertSessionDay(session: TastingSession, venue: Venue, now = ne
   const start = DateTime.fromJSDate(session.startsAt, { zone: venue.timeZone })
   const today = DateTime.fromJSDate(now, { zone: venue.timeZone })
   if (!start.hasSame(today, 'day') && now < session.startsAt) {
-    conflict(`Check-in opens on the day of the session (${start.toFormat('ccc d LLL')}).`)
+    conflict(`Check-in opens on the day of the session (${formatDay(session.startsAt, venue, now)}).`)
   }
 }
