@@ -4,7 +4,7 @@ import type { ConsoleMessage, Page } from 'playwright-core'
 import type { Client } from '../support/http'
 import { signedIn } from '../support/people'
 import { withDb } from '../support/db'
-import { bookAndPay, newGuest, newSession } from '../support/booking'
+import { bookAndPay, newGuest, newSession, startTodayIn } from '../support/booking'
 import { openBrowser, shot, signInThroughForm } from '../support/browser'
 import { DEMO_PASSWORD, DEMO_USERS } from '../../server/demo/data'
 
@@ -17,7 +17,7 @@ describe('the host\'s day on a tablet', () => {
     const guest = await newGuest('tablet')
     await bookAndPay(guest, sessionId, 3)
     await bookAndPay(await newGuest('second'), sessionId, 2)
-    await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = UTC_TIMESTAMP(3) + INTERVAL 15 MINUTE WHERE id = ?', [sessionId]))
+    await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = ? WHERE id = ?', [startTodayIn(15), sessionId]))
 
     const { context, close } = await openBrowser({ width: 1024, height: 1366 }) // a tablet held upright (common practice, no source)
     const page = await context.newPage()
@@ -75,7 +75,7 @@ describe('the host\'s door on a tablet held sideways', () => {
     const partly = await bookAndPay(await newGuest('door-partly'), sessionId, 2)
     const away = await bookAndPay(await newGuest('door-away'), sessionId, 1)
     // Started 5 minutes ago: "did not come" is offered, and the session runs for another 70 minutes.
-    await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = UTC_TIMESTAMP(3) - INTERVAL 5 MINUTE WHERE id = ?', [sessionId]))
+    await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = ? WHERE id = ?', [startTodayIn(-5), sessionId]))
     expect((await host.post(`/api/bookings/${partly.id}/check-in`, { seated: 1, idsSeen: 1, reason: 'One guest is parking' })).status).toBe(200)
     expect((await host.post(`/api/bookings/${away.id}/turn-away`, { reason: 'No photo ID' })).status).toBe(200)
     expect((await host.post(`/api/sessions/${sessionId}/walk-ins`, { contactName: 'Walk-in pair', partySize: 2, idsSeen: 2 })).status).toBe(201)

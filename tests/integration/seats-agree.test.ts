@@ -3,7 +3,7 @@ import { DateTime } from 'luxon'
 import { Client } from '../support/http'
 import { signedIn } from '../support/people'
 import { withDb } from '../support/db'
-import { bookAndPay, bookingBody, newGuest, newSession } from '../support/booking'
+import { bookAndPay, bookingBody, newGuest, newSession, startTodayIn } from '../support/booking'
 import { DEMO_VENUE } from '../../server/demo/data'
 
 /**
@@ -20,7 +20,7 @@ let flightId: number
 let day: string
 
 async function moveStart(minutesFromNow: number) {
-  await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = UTC_TIMESTAMP(3) + INTERVAL ? MINUTE WHERE id = ?', [minutesFromNow, sessionId]))
+  await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = ? WHERE id = ?', [startTodayIn(minutesFromNow), sessionId]))
   const [rows] = await withDb(c => c.query('SELECT starts_at AS s FROM tasting_sessions WHERE id = ?', [sessionId]))
   day = DateTime.fromJSDate((rows as { s: Date }[])[0]!.s, { zone: DEMO_VENUE.timeZone }).toISODate()!
 }

@@ -149,3 +149,14 @@ export async function outboxRows(to: string): Promise<{ subject: string, attachm
     return (rows as { subject: string, attachments: unknown }[]).map(r => ({ subject: r.subject, attachments: typeof r.attachments === 'string' ? JSON.parse(r.attachments) : r.attachments as any }))
   })
 }
+
+/**
+ * A start `minutesFromNow` away, kept on today's date in the venue's zone (check-in is for the
+ * session's day): close to the venue's midnight it is held just inside today.
+ */
+export function startTodayIn(minutesFromNow: number): Date {
+  const now = DateTime.now().setZone(DEMO_VENUE.timeZone)
+  let start = now.plus({ minutes: minutesFromNow })
+  if (!start.hasSame(now, 'day')) start = minutesFromNow > 0 ? now.endOf('day').minus({ seconds: 20 }) : now.startOf('day').plus({ seconds: 20 })
+  return start.toUTC().toJSDate()
+}
