@@ -31,7 +31,7 @@ const guest = { name: 'Wren Okafor', email: uniqueEmail('journey-guest'), passwo
 const flightName = `Journey Flight ${tag}`
 const products = [
   { code: `JY-A-${tag}`, name: `Kestrel Point Rosé ${tag}`, kind: 'still_wine', abv: '12.5', sugar: '3.1' },
-  { code: `JY-B-${tag}`, name: `Lantern Reach Rye ${tag}`, kind: 'spirit', abv: '43', sugar: '0' },
+  { code: `JY-B-${tag}`, name: `Lantern Reach Rye ${tag}`, kind: 'spirit', abv: '40', sugar: '0' },
 ]
 const intro = `Two pours from the coast, chosen for the journey ${tag}.`
 const noteWords = { bold: `wild strawberry ${tag}`, items: [`Pale salmon pink ${tag}`, `Dry finish ${tag}`] }
