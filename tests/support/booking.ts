@@ -157,6 +157,8 @@ export async function outboxRows(to: string): Promise<{ subject: string, attachm
 export function startTodayIn(minutesFromNow: number): Date {
   const now = DateTime.now().setZone(DEMO_VENUE.timeZone)
   let start = now.plus({ minutes: minutesFromNow })
-  if (!start.hasSame(now, 'day')) start = minutesFromNow > 0 ? now.endOf('day').minus({ seconds: 20 }) : now.startOf('day').plus({ seconds: 20 })
+  // Another test's session may be held there too: a flight has one session per instant, so each gets its own.
+  const spread = { seconds: 20 + Math.floor(Math.random() * 120), milliseconds: Math.floor(Math.random() * 1000) }
+  if (!start.hasSame(now, 'day')) start = minutesFromNow > 0 ? now.endOf('day').minus(spread) : now.startOf('day').plus(spread)
   return start.toUTC().toJSDate()
 }
