@@ -3,7 +3,7 @@ import { resolve } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import type { BrowserContext, Page } from 'playwright-core'
 import { DateTime } from 'luxon'
-import { SHOTS_DIR, openBrowser, shot, signInThroughForm } from '../support/browser'
+import { SHOTS_DIR, openBrowser, payWithTestCard, shot, signInThroughForm } from '../support/browser'
 import { type Client, uniqueEmail } from '../support/http'
 import { withDb } from '../support/db'
 import { waitForMail } from '../support/mail'
@@ -82,11 +82,7 @@ describe('a guest books and pays through the pages', () => {
     await page.waitForURL(`${inject('stripeUrl')}/pay/**`)
     await page.getByRole('heading', { name: 'Card details' }).waitFor()
     await shot(page, 'booking-payment-page')
-    await page.getByLabel('Name on card').fill(guest.name)
-    await page.getByLabel('Card number').fill('4242 4242 4242 4242') // Stripe docs: test card numbers
-    await page.getByLabel('Expiry (MM/YY)').fill('12/34')
-    await page.getByLabel('CVC').fill('123')
-    await page.getByRole('button', { name: /^Pay / }).click()
+    await payWithTestCard(page, guest.name)
 
     await page.waitForURL(/\/bookings\/\d+\?paid=1/)
     await page.getByRole('heading', { name: 'You\'re booked' }).waitFor({ timeout: 20_000 })

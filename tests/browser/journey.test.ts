@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import sharp from 'sharp'
 import { DateTime } from 'luxon'
 import type { BrowserContext, Page } from 'playwright-core'
-import { openBrowser, shot, signInThroughForm } from '../support/browser'
+import { openBrowser, payWithTestCard, shot, signInThroughForm } from '../support/browser'
 import { uniqueEmail } from '../support/http'
 import { linkUrl, waitForMail } from '../support/mail'
 import { withDb } from '../support/db'
@@ -192,11 +192,7 @@ describe('one journey from invitation to printed card', () => {
     await page.getByLabel(/Everyone in my party is 21 or older/).check()
     await page.getByRole('button', { name: /Continue to payment/ }).click()
     await page.waitForURL(`${inject('stripeUrl')}/pay/**`)
-    await page.getByLabel('Name on card').fill(guest.name)
-    await page.getByLabel('Card number').fill('4242 4242 4242 4242') // Stripe docs: test card numbers
-    await page.getByLabel('Expiry (MM/YY)').fill('12/34')
-    await page.getByLabel('CVC').fill('123')
-    await page.getByRole('button', { name: /^Pay / }).click()
+    await payWithTestCard(page, guest.name)
     await page.waitForURL(/\/bookings\/\d+\?paid=1/)
     await page.getByRole('heading', { name: 'You\'re booked' }).waitFor({ timeout: 20_000 })
     reference = (await page.locator('[data-reference]').innerText()).trim()

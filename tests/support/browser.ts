@@ -48,3 +48,12 @@ export async function signInThroughForm(page: Page, email: string, password: str
   await page.getByLabel('Password').fill(password)
   await page.getByRole('button', { name: 'Sign in' }).click()
 }
+
+/** Pays on the Stripe fake's hosted page with its always-successful test card (Stripe docs: test card numbers). */
+export async function payWithTestCard(page: Page, nameOnCard: string) {
+  await page.getByLabel('Name on card').fill(nameOnCard)
+  await page.getByLabel('Card number').fill('4242 4242 4242 4242')
+  await page.getByLabel('Expiry (MM/YY)').fill('12/34')
+  await page.getByLabel('CVC').fill('123')
+  await page.getByRole('button', { name: /^Pay / }).click()
+}
