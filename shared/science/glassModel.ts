@@ -13,8 +13,33 @@ import {
 import { viscosityHydroalcoholic_mPa_s, sugarViscosityFactor } from './viscosity'
 import { activityCoefficientsNrtl, findAzeotrope, isothermalAzeotropeMoleFraction } from './vle'
 
+/** The room's air around the glass: a hygrometer's two numbers. */
+export interface RoomAir {
+  /** Relative humidity of the room air, %, 0–100. */
+  relativeHumidityPct: number
+  /** Temperature of the room air, °C, 0–40. */
+  airTempC: number
+}
+
+/**
+ * The room assumed when none is given: 50 % relative humidity at 21 °C, the middle of the usual
+ * indoor comfort band (about 30–60 % RH, 20–24 °C; ASHRAE Standard 55 — from memory).
+ */
+export const DEFAULT_ROOM_AIR: RoomAir = { relativeHumidityPct: 50, airTempC: 21 }
+
+/**
+ * What kind of drink the glass holds, as far as the film cares: foam, bubbles and surface-active
+ * solutes change what a guest sees (docs/science.md, "Kinds of drink").
+ */
+export const DRINK_KINDS = ['still', 'sparkling', 'fortified', 'spirit', 'cider', 'beer', 'low_alcohol', 'other'] as const
+export type DrinkKind = (typeof DRINK_KINDS)[number]
+
 /** What computeFilm needs. */
 export interface FilmInputs {
+  /** The room's air (default DEFAULT_ROOM_AIR). */
+  room?: RoomAir
+  /** Kind of drink (default 'still'). */
+  kind?: DrinkKind
   /** ABV, % vol at 20 °C, 0–100. */
   abvPctVol: number
   /** Liquid temperature in the glass, °C, 0–40. */
@@ -178,7 +203,7 @@ export function computeFilm(input: FilmInputs): FilmResult {
   const unsweetened = predictTears({ ...physics, viscosity_mPa_s: etaSolvent })
 
   return {
-    inputs: { abvPctVol, tempC, sugarGL, wallAngleDeg },
+    inputs: { abvPctVol, tempC, sugarGL, wallAngleDeg, room: input.room ?? DEFAULT_ROOM_AIR, kind: input.kind ?? 'still' },
     solventAbvPctVol: c.solventAbvPctVol,
     solventCapped: c.solventCapped,
     ethanolMassFraction: c.ethanolMassFraction,

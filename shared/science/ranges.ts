@@ -21,6 +21,12 @@ export const TEMP_RANGE_C = { min: 0, max: 40 } as const
 /** Range of residual sugar (g/L) accepted by the model. */
 export const SUGAR_RANGE_G_L = { min: 0, max: 400 } as const
 
+/** Range of the room's relative humidity, %, accepted by the model. */
+export const HUMIDITY_RANGE_PCT = { min: 0, max: 100 } as const
+
+/** Range of the room's air temperature, °C, accepted by the model (the liquid's own range). */
+export const AIR_TEMP_RANGE_C = { min: 0, max: 40 } as const
+
 /** Range of the glass wall angle, degrees from horizontal (90 = vertical wall). */
 export const WALL_ANGLE_RANGE_DEG = { min: 15, max: 90 } as const
 

@@ -124,6 +124,8 @@ describe('sessions', () => {
     await page.goto('/manage/sessions', { waitUntil: 'networkidle' })
     await page.getByText('Schedule sessions').waitFor()
     const start = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ weeks: 20 }).set({ hour: 11, minute: 10 + Math.floor(Math.random() * 50), second: 0, millisecond: 0 })
+    // The demo's flight by value: other test files publish flights that may sort first.
+    await page.getByLabel('Flight', { exact: true }).selectOption(String(await demoFlightId()))
     await page.getByLabel('First date').fill(start.toISODate()!)
     await page.getByLabel('Start time').fill(start.toFormat('HH:mm'))
     await page.getByLabel('Host').selectOption({ label: 'Teodor Vasko' })
