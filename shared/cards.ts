@@ -85,18 +85,18 @@ const ALLERGEN_LABELS: Record<Allergen, string> = {
 }
 
 /** Why it happens, said once per card (each pour's own numbers are in its lines). */
-const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film turns more watery and its surface tension rises above the wine\'s. That stronger pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears.'
+const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film turns more watery and its surface tension rises above the rest of the pour. That stronger pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears. The ranges are for a clean glass in still air in this room; a draught or traces of detergent change them.'
 
 export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, guestName?: string | null, sessionLabel?: string | null }): FlightCard {
   const { venue, flight } = opts
   const tempUnit = venue.temperatureUnit === 'f' ? 'F' : 'C'
   const pours = flight.pours.map((p) => {
-    const lines = describePour(p.film, { temperatureUnit: tempUnit })
+    const lines = describePour(p.film, { temperatureUnit: tempUnit, brief: true })
     // Each pour keeps its own sentences; the "Why" and the quality sentence are said once per card.
     // The card already states the strength and temperature, so "At 12 % ABV and 50 °F, swirl…"
     // becomes "Swirl…".
     const lookFor = lines.slice(0, -1).filter(l => !l.startsWith('Why:'))
-      .map(l => l.replace(/^At [\d.]+ % ABV and -?[\d.]+ °[CF], (\w)/, (_, c: string) => c.toUpperCase()))
+      .map(l => l.replace(/^At [\d.]+\u00a0% ABV and -?[\d.]+\u00a0°[CF],? (\w)/, (_, c: string) => c.toUpperCase()))
     return {
       position: p.position,
       name: p.product.name,

@@ -1,6 +1,6 @@
 import { z } from './zod'
 import { ABV_RANGE_PCT_VOL, SUGAR_RANGE_G_L, TEMP_RANGE_C, WALL_ANGLE_RANGE_DEG } from '../science/ranges'
-import { DEFAULT_WALL_ANGLE_DEG } from '../science/predictions'
+import { DEFAULT_WALL_ANGLE_DEG } from '../science/glassModel'
 
 /** A query number with a range and a message that names the field, its unit and its range. */
 function queryNumber(label: string, unit: string, range: { min: number, max: number }) {

@@ -1,5 +1,7 @@
 /**
- * Evaporative depletion of the thin film that climbs the glass wall above the meniscus.
+ * Evaporative depletion of a batch of liquid into dry air at equilibrium (the Rayleigh problem):
+ * the textbook limit the climbing-film model (climbingFilm.ts) reduces to when the room is dry and
+ * both vapours leave with the same transfer coefficient. Kept as a check of the film physics.
  *
  * The film is a batch of liquid that evaporates into the room air while the bulk below barely
  * changes. Open-air evaporation is not boiling: the film stays at the glass temperature, and the
@@ -7,70 +9,12 @@
  * temperature (α = γ1 P1sat / (γ2 P2sat)). This is the Rayleigh (batch distillation) problem.
  */
 import { meanMolarMass_g_mol, massFractionFromMoleFraction } from './composition'
-import { GAS_CONSTANT_J_MOL_K, KELVIN_AT_0C, MOLAR_MASS_ETHANOL_G_MOL, MOLAR_MASS_WATER_G_MOL } from './constants'
+import { KELVIN_AT_0C } from './constants'
 import { TEMP_RANGE_C, assertInRange } from './ranges'
-import { type ActivityModel, type VapourState, vapourStateUnchecked } from './vle'
-
-/**
- * Fraction of its volatile (water + ethanol) mass that the film at the top of the climbing band has
- * lost by evaporation, relative to the liquid at the meniscus. An estimate, not a measured value:
- * a film ~20–40 µm thick (areal mass ~0.02–0.04 kg/m²) losing ~1–2×10⁻⁴ kg m⁻² s⁻¹ (see
- * EVAPORATION_MASS_TRANSFER_COEFF_M_S) over the ~5–20 s a parcel takes to climb a ~1 cm band loses
- * a few per cent; 5 % is the middle of that range and puts the predicted clear band of a 12–14 %
- * vol wine at 20 °C at about a centimetre, the height commonly seen (common practice, no source).
- * In the small-loss limit the 0–10 index, the film thickness and the tear speed do not depend on it
- * (Δσ ∝ f; τ⁴ ∝ (Δσ/f)·J, see predictions.ts); the band height and tear onset time scale about
- * linearly with it.
- */
-export const FILM_MASS_LOSS_FRACTION = 0.05
-
-/**
- * Mass-transfer coefficient for evaporation from the wetted glass wall into still room air, m/s:
- * k = D/δ with water-vapour diffusivity in air ≈ 2.5×10⁻⁵ m²/s at 20 °C (from memory) and a
- * diffusion layer δ ≈ 5 mm for a glass standing in still indoor air (estimate). The same k is
- * used for ethanol and water, so evaporation is governed by the partial pressures alone (see
- * docs/science.md for what this leaves out: ethanol's lower diffusivity, humidity).
- */
-const EVAPORATION_MASS_TRANSFER_COEFF_M_S = 5e-3
+import { type ActivityModel, vapourStateUnchecked } from './vle'
 
 /** Number of classical Runge–Kutta steps for the Rayleigh integration (error < 1e-9 in x1; see tests). */
 const RAYLEIGH_RK4_STEPS = 40
-
-/** Evaporation fluxes from a liquid surface into dry, still air (pressures and vapour as in VapourState, vle.ts). */
-export interface EvaporationFlux extends Pick<VapourState, 'pEthanol_Pa' | 'pWater_Pa' | 'relativeVolatility' | 'y1'> {
-  /** Ethanol mass flux, kg/(m²·s). */
-  ethanol_kg_m2_s: number
-  /** Water mass flux, kg/(m²·s). */
-  water_kg_m2_s: number
-  /** Total mass flux, kg/(m²·s). */
-  total_kg_m2_s: number
-}
-
-/**
- * Evaporation mass fluxes J_i = k M_i p_i / (R T), p_i = x_i γ_i P_i^sat (modified Raoult law at
- * the liquid temperature; NRTL by default), far-field vapour pressures taken as zero (dry air).
- * Sources: Antoine (Poling et al.), NRTL (DECHEMA); k from EVAPORATION_MASS_TRANSFER_COEFF_M_S.
- * Valid 0–40 °C, x1 0–1.
- * @param x1 ethanol mole fraction of the liquid, 0–1
- */
-export function evaporationFlux(x1: number, tempC: number, model: ActivityModel = 'nrtl'): EvaporationFlux {
-  assertInRange('x1', x1, 0, 1, '(mole fraction)')
-  assertInRange('tempC', tempC, TEMP_RANGE_C.min, TEMP_RANGE_C.max, '°C')
-  const T = tempC + KELVIN_AT_0C
-  const v = vapourStateUnchecked(x1, T, model)
-  const c = EVAPORATION_MASS_TRANSFER_COEFF_M_S / (GAS_CONSTANT_J_MOL_K * T) / 1000 // g → kg
-  const je = c * MOLAR_MASS_ETHANOL_G_MOL * v.pEthanol_Pa
-  const jw = c * MOLAR_MASS_WATER_G_MOL * v.pWater_Pa
-  return {
-    ethanol_kg_m2_s: je,
-    water_kg_m2_s: jw,
-    total_kg_m2_s: je + jw,
-    pEthanol_Pa: v.pEthanol_Pa,
-    pWater_Pa: v.pWater_Pa,
-    relativeVolatility: v.relativeVolatility,
-    y1: v.y1,
-  }
-}
 
 /** Composition of the evaporated film. */
 export interface FilmState {
@@ -97,8 +41,8 @@ export interface FilmState {
 export function filmComposition(
   x1Bulk: number,
   tempC: number,
-  massLossFraction: number = FILM_MASS_LOSS_FRACTION,
-  model: ActivityModel = 'nrtl',
+  massLossFraction: number,
+  model: ActivityModel = 'glass',
 ): FilmState {
   assertInRange('x1Bulk', x1Bulk, 0, 1, '(mole fraction)')
   assertInRange('tempC', tempC, TEMP_RANGE_C.min, TEMP_RANGE_C.max, '°C')
@@ -135,7 +79,7 @@ export function filmComposition(
  * checking filmComposition against the equation in its textbook form. Valid for 0 < x, x0 < 1 on
  * the same side of any azeotrope.
  */
-export function rayleighLnMoleRatio(x0: number, x: number, tempC: number, intervals = 2000, model: ActivityModel = 'nrtl'): number {
+export function rayleighLnMoleRatio(x0: number, x: number, tempC: number, intervals = 2000, model: ActivityModel = 'glass'): number {
   assertInRange('x0', x0, 0, 1, '(mole fraction)')
   assertInRange('x', x, 0, 1, '(mole fraction)')
   const T = tempC + KELVIN_AT_0C

@@ -1,245 +1,204 @@
 /**
- * What the guest will see: climbing film, clear band, tears — order-of-magnitude predictions from
- * published scaling laws for Marangoni-driven climbing films, plus a plain-English description.
- *
- * Geometry: s is distance along the glass wall, upward; the wall makes angle β with the horizontal
- * (90° = vertical); gravity along the wall is g sin β. The wall is taken as fully wetted (glass
- * pre-wetted by the swirl, zero contact angle).
+ * What the guest reads: a few sentences generated from one computeFilm result — what to look for
+ * (with the predicted ranges), why (the Gibbs–Marangoni effect), what this kind of drink changes,
+ * the limits of the numbers, and always that tears say nothing about quality. Every number in the
+ * text comes from the result passed in, so no sentence can contradict the figures beside it.
  */
-import { GRAVITY_M_S2 } from './constants'
-import { FILM_MASS_LOSS_FRACTION } from './film'
-import { WALL_ANGLE_RANGE_DEG, assertInRange } from './ranges'
-
-/**
- * Default wall angle, degrees from horizontal: the bowl of a typical tulip-shaped wine glass leans
- * inward by ~20° from vertical at the liquid line (common practice, no source).
- */
-export const DEFAULT_WALL_ANGLE_DEG = 70
-
-/**
- * Thickness of a falling tear relative to the film's zero-flux thickness h*, dimensionless. A ridge
- * falls only once it is thicker than h* (below h* the Marangoni flux is upward); it grows by
- * collecting the climbing film, and we take twice h* as typical of a tear on its way down
- * (estimate, no source; the undercompressive-shock solutions of Dukler et al., Phys. Rev. Fluids 5,
- * 034002, 2020, show ridges of this order of the film thickness — from memory).
- */
-const TEAR_THICKNESS_RATIO = 2
-
-/**
- * A climbing film shorter than this many capillary lengths stays hidden in the meniscus region and
- * shows no distinct clear band or tears (estimate: a ridge about ℓc wide cannot separate from a
- * meniscus closer than its own width; no source).
- */
-const VISIBLE_BAND_MIN_CAPILLARY_LENGTHS = 1
-
-/** Inputs to the scaling laws, each in the unit its name says. */
-export interface TearPhysicsInput {
-  /** Marangoni driving force σ(film) − σ(bulk), mN/m. */
-  deltaSigma_mN_m: number
-  /** Surface tension of the bulk liquid, mN/m. */
-  surfaceTension_mN_m: number
-  /** Density of the drink, kg/m³. */
-  density_kg_m3: number
-  /** Viscosity of the drink, mPa·s. */
-  viscosity_mPa_s: number
-  /** Total evaporation mass flux from the film, kg/(m²·s). */
-  evaporationFlux_kg_m2_s: number
-  /** Wall angle from horizontal, degrees (15–90). */
-  wallAngleDeg?: number
-  /** Evaporated fraction of the film at the top of the band (default FILM_MASS_LOSS_FRACTION). */
-  massLossFraction?: number
-}
-
-/** Predicted appearance of the film and tears. Null where the effect is absent. */
-export interface TearPrediction {
-  /** Whether a distinct clear band and tears are expected. */
-  tearsExpected: boolean
-  /** Capillary length √(σ/(ρg)), mm: sets the meniscus and the tears' width. */
-  capillaryLength_mm: number
-  /** Meniscus rise on the wall, vertical, mm. */
-  meniscusHeight_mm: number
-  /** Length of the climbing (clear) band along the wall above the meniscus, mm (0 if no film). */
-  clearBandHeight_mm: number
-  /** Marangoni shear stress Δσ / H, Pa. */
-  marangoniStress_Pa: number
-  /** Zero-net-flux film thickness h* = 3τ/(2ρ g sinβ), µm. */
-  filmThickness_um: number
-  /** Thickness of the climbing film at maximum upward flux, τ/(ρ g sinβ), µm. */
-  climbingFilmThickness_um: number
-  /** Mean climbing speed of the film, mm/s. */
-  climbSpeed_mm_s: number
-  /** Time after a swirl before tears form, s (null if none expected). */
-  tearOnset_s: number | null
-  /** Speed at which tears slide back down, mm/s (null if none expected). */
-  tearFallSpeed_mm_s: number | null
-  /** Typical tear width, ≈ capillary length, mm (null if none expected). */
-  tearWidth_mm: number | null
-}
-
-/**
- * Scaling-law predictions for the climbing film and tears.
- *
- * Thin-film lubrication on a wall with surface stress τ (Fournier & Cazabat, Europhys. Lett. 20,
- * 517, 1992; Hosoi & Bush, J. Fluid Mech. 442, 217, 2001): flux q(h) = τh²/(2μ) − ρ g sinβ h³/(3μ);
- * zero net flux at h* = 3τ/(2ρ g sinβ); largest upward flux at h_c = τ/(ρ g sinβ) with mean speed
- * ū = τ²/(6 μ ρ g sinβ). Closure (this model): τ = Δσ/H over the band height H, and a parcel's
- * climb time H/ū equals the time f ρ h_c / J to evaporate the fraction f that produced Δσ, so
- *   H⁴ = f Δσ³ / (6 μ ρ g² sin²β J).
- * Tear onset after a swirl: drainage of the swirled film to h* over H (Jeffreys, Proc. Camb. Phil.
- * Soc. 26, 204, 1930 — from memory: h = √(μ s/(ρ g sinβ t))) plus the evaporation time:
- *   t = μ H/(ρ g sinβ h*²) + f ρ h_c / J.
- * Tear fall: a ridge of thickness h_t = 2h* sliding down under gravity against the Marangoni
- * stress, U = ρ g sinβ h_t²/(3μ) − τ h_t/(2μ) = (2/3) ρ g sinβ h*²/μ. Tear width ~ capillary length.
- * Meniscus on a wetted wall leaning at β over the liquid: rise ℓc √(2(1 − cos β)).
- * Valid as order-of-magnitude estimates (factor ~2–3) for the quasi-steady film; see
- * docs/science.md for what it leaves out.
- */
-export function predictTears(input: TearPhysicsInput): TearPrediction {
-  const beta = input.wallAngleDeg ?? DEFAULT_WALL_ANGLE_DEG
-  assertInRange('wallAngleDeg', beta, WALL_ANGLE_RANGE_DEG.min, WALL_ANGLE_RANGE_DEG.max, '° from horizontal')
-  const f = input.massLossFraction ?? FILM_MASS_LOSS_FRACTION
-  assertInRange('massLossFraction', f, 1e-6, 0.9, '(mass fraction)')
-  assertInRange('surfaceTension_mN_m', input.surfaceTension_mN_m, 1, 100, 'mN/m')
-  assertInRange('density_kg_m3', input.density_kg_m3, 500, 2000, 'kg/m³')
-  assertInRange('viscosity_mPa_s', input.viscosity_mPa_s, 0.1, 1000, 'mPa·s')
-  assertInRange('evaporationFlux_kg_m2_s', input.evaporationFlux_kg_m2_s, 1e-12, 1, 'kg/(m²·s)')
-  if (!Number.isFinite(input.deltaSigma_mN_m)) throw new RangeError('deltaSigma_mN_m must be a finite number')
-
-  const sinB = Math.sin((beta * Math.PI) / 180)
-  const cosB = Math.cos((beta * Math.PI) / 180)
-  const rho = input.density_kg_m3
-  const mu = input.viscosity_mPa_s * 1e-3 // Pa·s
-  const J = input.evaporationFlux_kg_m2_s
-  const g = GRAVITY_M_S2
-  const lc = Math.sqrt((input.surfaceTension_mN_m * 1e-3) / (rho * g))
-  const meniscus = lc * Math.sqrt(2 * (1 - cosB))
-  const base = { capillaryLength_mm: lc * 1e3, meniscusHeight_mm: meniscus * 1e3 }
-  const ds = input.deltaSigma_mN_m * 1e-3 // N/m
-
-  if (!(ds > 0)) {
-    return {
-      ...base, tearsExpected: false, clearBandHeight_mm: 0, marangoniStress_Pa: 0, filmThickness_um: 0,
-      climbingFilmThickness_um: 0, climbSpeed_mm_s: 0, tearOnset_s: null, tearFallSpeed_mm_s: null, tearWidth_mm: null,
-    }
-  }
-  const H = ((f * ds ** 3) / (6 * mu * rho * g * g * sinB * sinB * J)) ** 0.25
-  const tau = ds / H
-  const hStar = (3 * tau) / (2 * rho * g * sinB)
-  const hClimb = tau / (rho * g * sinB)
-  const climbSpeed = (tau * tau) / (6 * mu * rho * g * sinB)
-  const expected = H >= VISIBLE_BAND_MIN_CAPILLARY_LENGTHS * lc
-  const tDrain = (mu * H) / (rho * g * sinB * hStar * hStar)
-  const tEvap = (f * rho * hClimb) / J
-  const hTear = TEAR_THICKNESS_RATIO * hStar
-  const fall = (rho * g * sinB * hTear * hTear) / (3 * mu) - (tau * hTear) / (2 * mu)
-  return {
-    ...base,
-    tearsExpected: expected,
-    clearBandHeight_mm: H * 1e3,
-    marangoniStress_Pa: tau,
-    filmThickness_um: hStar * 1e6,
-    climbingFilmThickness_um: hClimb * 1e6,
-    climbSpeed_mm_s: climbSpeed * 1e3,
-    tearOnset_s: expected ? tDrain + tEvap : null,
-    tearFallSpeed_mm_s: expected ? fall * 1e3 : null,
-    tearWidth_mm: expected ? lc * 1e3 : null,
-  }
-}
-
-/** The fields of a computeFilm result that describePour reads. */
-export interface PourDescriptionInput {
-  inputs: { abvPctVol: number, tempC: number, sugarGL: number }
-  solventMoleFraction: number
-  atOrBeyondAzeotrope: boolean
-  azeotropeAbvPctVol: number | null
-  surfaceTensionBulk_mN_m: number
-  surfaceTensionFilm_mN_m: number
-  deltaSigma_mN_m: number
-  filmActivityIndex: number
-  viscosity_mPa_s: number
-  sugarViscosityFactor: number
-  predictions: TearPrediction
-  tearFallSpeedUnsweetened_mm_s: number | null
-}
+import { type FilmResult, centralClimb } from './glassModel'
+import type { Range } from './uncertainty'
 
 /** Options for describePour. */
 export interface DescribeOptions {
   /** Temperature unit in the text (default 'C'). */
   temperatureUnit?: 'C' | 'F'
-}
-
-/**
- * Below this Δσ (mN/m) evaporation changes the film's surface tension too little to matter: the
- * pour is treated like one at the azeotrope in the prose (0.01 mN/m is about 1/500 of a table
- * wine's Δσ in this model).
- */
-const NEGLIGIBLE_DELTA_SIGMA_MN_M = 0.01
-
-/** A sugar viscosity factor below this is not worth a sentence (5 % slower flow). */
-const SUGAR_SENTENCE_MIN_FACTOR = 1.05
-
-/** Rounds for prose: 2 significant figures, no trailing zeros ("12", "0.85", "1.3"). */
-function fmt(value: number): string {
-  if (value === 0) return '0'
-  const digits = Math.max(0, 1 - Math.floor(Math.log10(Math.abs(value))))
-  return String(Number(value.toFixed(Math.min(digits, 3))))
-}
-
-function fmtTemp(tempC: number, unit: 'C' | 'F'): string {
-  return unit === 'F' ? `${Math.round((tempC * 9) / 5 + 32)} °F` : `${Math.round(tempC)} °C`
+  /**
+   * A card's few lines: what to look for, the comparison with a table wine, sugar and the kind of
+   * drink — without the why, cooling, humidity, limits and quality sentences, which a card says
+   * once for all its pours.
+   */
+  brief?: boolean
 }
 
 /** The sentence every description ends with. */
 export const QUALITY_DISCLAIMER
   = 'Tears say nothing about quality: they come from alcohol and evaporation, and sugar only slows them — it does not make them.'
 
+/** A sugar viscosity factor below this is not worth a sentence (5 % slower flow). */
+const SUGAR_SENTENCE_MIN_FACTOR = 1.05
+
+/** ABV from which a pour is compared with a table wine in the text (spirits and their dilutions). */
+const COMPARE_FROM_ABV_PCT_VOL = 30
+
+/** The table wine the stronger pours are compared with, % vol (a common table-wine strength). */
+const TABLE_WINE_ABV_PCT_VOL = 12
+
+/** Ratios within this of 1 read as "similar" (±15 %). */
+const SIMILAR_WITHIN = 0.15
+
+/** The share of the pull from cooling worth a sentence. */
+const THERMAL_SENTENCE_MIN_SHARE = 0.2
+
+/** 2 significant figures, no trailing zeros ("12", "0.85", "1.3"). */
+function sig2(value: number): string {
+  if (value === 0) return '0'
+  const digits = Math.max(0, 1 - Math.floor(Math.log10(Math.abs(value))))
+  return String(Number(value.toFixed(Math.min(digits, 3))))
+}
+
+/** A range for prose: "8–14", or "about 9" when both ends round alike. */
+export function rangeText(r: Range, unit: string): string {
+  const lo = sig2(r.low)
+  const hi = sig2(r.high)
+  const sep = unit ? '\u00a0' : ''
+  return lo === hi ? `about ${lo}${sep}${unit}` : `${lo}–${hi}${sep}${unit}`
+}
+
+/** A whole-number range for counts ("20–30"). */
+function countText(r: Range): string {
+  const lo = Math.max(1, Math.round(r.low))
+  const hi = Math.max(lo, Math.round(r.high))
+  return lo === hi ? `about ${lo}` : `${lo}–${hi}`
+}
+
+/** The ABV exactly as the lab sheet states it (up to two decimals, no rounding to whole per cent). */
+export function abvText(abvPctVol: number): string {
+  return String(Number(abvPctVol.toFixed(2)))
+}
+
+function tempText(tempC: number, unit: 'C' | 'F'): string {
+  return unit === 'F' ? `${Math.round((tempC * 9) / 5 + 32)}\u00a0°F` : `${Math.round(tempC)}\u00a0°C`
+}
+
+function tempDiffText(kelvin: number, unit: 'C' | 'F'): string {
+  return unit === 'F' ? `${sig2((kelvin * 9) / 5)}\u00a0°F` : `${sig2(kelvin)}\u00a0°C`
+}
+
+/** The room and glass the numbers assume, said where the numbers are. */
+function limitsSentence(r: FilmResult, unit: 'C' | 'F'): string {
+  const room = r.inputs.room
+  return `These are ranges for a clean glass in still air at ${Math.round(room.relativeHumidityPct)}\u00a0% humidity and ${tempText(room.airTempC, unit)}; traces of detergent, a draught or a warm hand change them.`
+}
+
+/** How a stronger pour compares with a table wine in the same glass and room, from both results. */
+function tableWineComparison(r: FilmResult, brief: boolean): string | null {
+  const p = r.predictions
+  if (r.inputs.abvPctVol < COMPARE_FROM_ABV_PCT_VOL || !p.tearsExpected || p.tearFallSpeed_mm_s === null) return null
+  const wine = centralClimb({ ...r.inputs, abvPctVol: TABLE_WINE_ABV_PCT_VOL, sugarGL: 0, kind: 'still' })
+  if (!(wine.marangoniStress_Pa > 0) || wine.tearFallSpeed_mm_s === null) return null
+  const word = (ratio: number, more: string, less: string, same: string): string =>
+    Math.abs(ratio - 1) <= SIMILAR_WITHIN ? same : ratio > 1 ? more : less
+  const pull = word(p.marangoniStress_Pa / wine.marangoniStress_Pa, 'a stronger pull', 'a weaker pull', 'a similar pull')
+  const film = word(p.filmThickness_um / wine.filmThickness_um, 'a thicker film', 'a thinner film', 'a film about as thick')
+  const carried = word(p.climbFlux_mm2_s / wine.climbFlux_mm2_s, 'more liquid carried up', 'less liquid carried up', 'about as much liquid carried up')
+  const fallRatio = p.tearFallSpeed_mm_s / wine.tearFallSpeed_mm_s
+  const fall = Math.abs(fallRatio - 1) <= SIMILAR_WITHIN
+    ? 'tears that fall about as fast'
+    : fallRatio < 1 ? `tears that fall about ${Math.round(100 * (1 - fallRatio))}\u00a0% slower` : `tears that fall about ${Math.round(100 * (fallRatio - 1))}\u00a0% faster`
+  const band = p.clearBandHeight_mm < wine.clearBandHeight_mm * (1 - SIMILAR_WITHIN) ? ', and a lower band, so most legs run down from where the swirl left the liquid' : ''
+  const legs = fallRatio < 1 - SIMILAR_WITHIN ? ' — the slow legs stronger drinks are known for' : ''
+  if (brief) {
+    const lower = band ? ', a lower band' : ''
+    return `Against a ${TABLE_WINE_ABV_PCT_VOL}\u00a0% table wine here: ${pull}, ${fall.replace('tears that fall', 'tears falling')}${lower}${legs}.`
+  }
+  return `Against a ${TABLE_WINE_ABV_PCT_VOL}\u00a0% table wine in the same glass and room: ${pull}, ${film}, ${carried} and ${fall}${band}${legs}.`
+}
+
+/** What the kind of drink changes, in words that agree with the numbers above them. */
+function kindSentence(r: FilmResult): string | null {
+  switch (r.inputs.kind) {
+    case 'sparkling':
+      return 'The bubbles and the foam come first: the band and tears appear once the foam has settled, as in a still wine of the same strength.'
+    case 'cider':
+      return r.predictions.tearsExpected ? 'A still cider shows this like a wine of the same strength; a sparkling one, once its foam has settled.' : null
+    default:
+      return null
+  }
+}
+
 /**
- * A few short sentences for a guest, built from a computeFilm result: what to look for (climbing
- * film, clear band, tears and their speed, with this pour's predicted numbers), why (ethanol leaves
- * the thin film faster than water, the film's surface tension rises, and the difference pulls
- * liquid up the glass — the Gibbs–Marangoni effect), why sugar slows the tears (viscosity), and
- * always that tears tell nothing about quality. Handles 0 % vol (no climbing film), the azeotrope
- * and beyond (no tears from this effect) and films too short to show.
+ * A few short sentences for a guest, from a computeFilm result. Handles no alcohol, beer's foam,
+ * films too short to show (strong spirits in dry or still rooms, very dilute drinks), and the
+ * full show with its ranges; sugar, cooling, humid rooms and the comparison of strong pours with a
+ * table wine get a sentence when the numbers make them matter.
  */
-export function describePour(result: PourDescriptionInput, options: DescribeOptions = {}): string[] {
+export function describePour(result: FilmResult, options: DescribeOptions = {}): string[] {
   const unit = options.temperatureUnit ?? 'C'
+  const brief = options.brief === true
   const { abvPctVol, tempC, sugarGL } = result.inputs
   const p = result.predictions
   const out: string[] = []
-  const at = `At ${fmt(abvPctVol)} % ABV and ${fmtTemp(tempC, unit)}`
+  const at = `At ${abvText(abvPctVol)}\u00a0% ABV and ${tempText(tempC, unit)}`
 
   if (result.solventMoleFraction === 0) {
     out.push(
       `${at} there is no alcohol to evaporate, so the liquid left on the glass keeps the same surface tension as the rest: expect no climbing film and no tears.`,
       'Any drops that run down after a swirl are simply draining under gravity.',
     )
+    out.push(QUALITY_DISCLAIMER)
+    return out
   }
-  else if (result.atOrBeyondAzeotrope || !(result.deltaSigma_mN_m > NEGLIGIBLE_DELTA_SIGMA_MN_M)) {
-    const azeo = result.azeotropeAbvPctVol === null ? '' : ` (from about ${fmt(result.azeotropeAbvPctVol)} % ABV up, in this model)`
+  if (p.suppressedBy === 'foam') {
     out.push(
-      `${at} water and ethanol leave the glass in nearly the proportion they are in the liquid${azeo}, so evaporation no longer makes the film on the wall more watery.`,
-      'Its surface tension does not rise above the rest of the pour, so there is nothing to pull a film up the glass: no tears from this effect.',
+      `${at} evaporation would pull a film up the glass as in wine, but beer's proteins and hop compounds gather at its surface and hold it still, so the film cannot climb: expect rings of foam left on the glass as the level drops, not tears.`,
     )
+    out.push(QUALITY_DISCLAIMER)
+    return out
   }
-  else if (!p.tearsExpected || p.tearOnset_s === null || p.tearFallSpeed_mm_s === null || p.tearWidth_mm === null) {
-    out.push(
-      `${at} evaporation still makes the film on the glass slightly more watery, raising its surface tension by only ${fmt(result.deltaSigma_mN_m)} mN/m.`,
-      `That pull can lift a film only about ${fmt(p.clearBandHeight_mm)} mm, inside the curve of the liquid's edge, so distinct tears are unlikely.`,
-    )
+  if (!p.tearsExpected || p.tearFallSpeed_mm_s === null) {
+    const why = p.suppressedBy === 'held'
+      ? `evaporation raises the film's surface tension by only about ${sig2(result.deltaSigma_mN_m)}\u00a0mN/m, too little to move a surface that the drink's own proteins and other surface-active compounds hold still`
+      : result.solventAbvPctVol >= 50
+        ? 'at this strength the surface tension hardly changes as the film loses ethanol, so evaporation makes little difference between the film and the rest'
+        : 'evaporation gives the film too little pull'
+    out.push(`${at} ${why}: expect no clear band and no distinct tears.`)
+    out.push('Drops after a swirl simply drain back under gravity.')
+    if (!brief) out.push(limitsSentence(result, unit))
+    out.push(QUALITY_DISCLAIMER)
+    return out
   }
-  else {
+
+  const rg = p.ranges
+  const band = rg.clearBandHeight_mm ? rangeText(rg.clearBandHeight_mm, 'mm') : `about ${sig2(p.clearBandHeight_mm)}\u00a0mm`
+  const onset = rg.tearOnset_s ? rangeText(rg.tearOnset_s, 's') : `${sig2(p.tearOnset_s ?? 0)}\u00a0s`
+  const fall = rg.tearFallSpeed_mm_s ? rangeText(rg.tearFallSpeed_mm_s, 'mm/s') : `${sig2(p.tearFallSpeed_mm_s)}\u00a0mm/s`
+  const count = rg.tearsAround ? countText(rg.tearsAround) : String(Math.round(p.tearsAround ?? 0))
+  const tears = `${count} around the glass, each about ${sig2(p.tearWidth_mm ?? p.capillaryLength_mm)}\u00a0mm wide, sliding down at ${fall}`
+  if (brief) {
+    out.push(p.bandVisible
+      ? `${at}, swirl: within ${onset} a band ${band} tall climbs the glass, then ${count} tears about ${sig2(p.tearWidth_mm ?? p.capillaryLength_mm)}\u00a0mm wide slide down at ${fall}.`
+      : `${at}, swirl: the band stays low, but the swirled film runs down as ${count} legs about ${sig2(p.tearWidth_mm ?? p.capillaryLength_mm)}\u00a0mm wide at ${fall}.`)
+  }
+  else out.push(p.bandVisible
+    ? `${at}, swirl and watch: within ${onset} a clear band ${band} tall forms above the liquid, gathers into a ridge and falls back as tears — ${tears}.`
+    : `${at}, swirl and watch: the band of climbing film stays low, inside the curve of the liquid's edge, but the film the swirl leaves on the glass gathers into a ridge and runs down as legs — ${tears}.`)
+  const show = rg.swirlShow_s ? rangeText(rg.swirlShow_s, 's') : `${sig2(p.swirlShow_s ?? 0)}\u00a0s`
+  if (!brief) {
+    out.push(p.bandVisible
+      ? `The curtain the swirl leaves drains into tears within ${show}; after that the band keeps making tears for as long as the glass stands still (the pour loses only about ${sig2(p.alcoholLossPer10Min_pct)}\u00a0% of its alcohol every ten minutes).`
+      : `The legs keep coming for ${show}, until the swirled film has drained; swirl again to see them again.`)
     out.push(
-      `${at}, swirl and watch the glass: within about ${fmt(p.tearOnset_s)} s a clear film about ${fmt(p.filmThickness_um)} µm thick should climb roughly ${fmt(p.clearBandHeight_mm)} mm above the liquid, gather into a ridge, and drop back as tears about ${fmt(p.tearWidth_mm)} mm wide, sliding at around ${fmt(p.tearFallSpeed_mm_s)} mm/s.`,
-      `Why: ethanol evaporates from that thin film faster than water, so the film turns more watery and its surface tension rises from ${result.surfaceTensionBulk_mN_m.toFixed(1)} to ${result.surfaceTensionFilm_mN_m.toFixed(1)} mN/m; the stronger pull of the film draws liquid up from below (the Gibbs–Marangoni effect) until the ridge grows too heavy and falls.`,
+      `Why: ethanol leaves the thin film faster than water, so the film turns more watery and its surface tension rises from ${result.surfaceTensionBulk_mN_m.toFixed(1)} to about ${result.surfaceTensionFilm_mN_m.toFixed(1)}\u00a0mN/m; the stronger pull draws liquid up from below (the Gibbs–Marangoni effect) until the ridge grows too heavy and falls.`,
     )
-    const unsweet = result.tearFallSpeedUnsweetened_mm_s
-    if (sugarGL > 0 && result.sugarViscosityFactor >= SUGAR_SENTENCE_MIN_FACTOR && unsweet !== null && unsweet > 0) {
-      const slower = Math.round(100 * (1 - p.tearFallSpeed_mm_s / unsweet))
-      out.push(
-        `Its ${fmt(sugarGL)} g/L of sugar makes it ${fmt(result.sugarViscosityFactor)} times as viscous (${fmt(result.viscosity_mPa_s)} mPa·s), so the tears fall about ${slower} % slower than they would without it.`,
-      )
+    const share = result.deltaSigma_mN_m > 0 ? result.thermalDeltaSigma_mN_m / result.deltaSigma_mN_m : 0
+    if (share >= THERMAL_SENTENCE_MIN_SHARE) {
+      out.push(`Evaporation also cools the film by about ${tempDiffText(result.filmCooling_K, unit)}, and cooler liquid pulls harder: about ${Math.round(100 * share)}\u00a0% of that pull comes from the cooling.`)
+    }
+    if (result.waterFlux_kg_m2_s < 0) {
+      out.push('In this humid room the film even takes water up from the air while it loses ethanol, which adds to the pull.')
     }
   }
+  const compare = tableWineComparison(result, brief)
+  if (compare) out.push(compare)
+  const unsweet = result.tearFallSpeedUnsweetened_mm_s
+  if (sugarGL > 0 && result.sugarViscosityFactor >= SUGAR_SENTENCE_MIN_FACTOR && unsweet !== null && unsweet > 0) {
+    const slower = Math.round(100 * (1 - p.tearFallSpeed_mm_s / unsweet))
+    out.push(
+      `Its ${sig2(sugarGL)}\u00a0g/L of sugar makes it ${sig2(result.sugarViscosityFactor)} times as viscous (${sig2(result.viscosity_mPa_s)}\u00a0mPa·s), so the tears fall about ${slower}\u00a0% slower than they would without it.`,
+    )
+  }
+  const kind = kindSentence(result)
+  if (kind) out.push(kind)
+  if (!brief) out.push(limitsSentence(result, unit))
   out.push(QUALITY_DISCLAIMER)
   return out
 }

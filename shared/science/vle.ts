@@ -5,7 +5,7 @@
  * Conventions: `x1` / `y1` are ethanol mole fractions (0–1) in liquid / vapour; temperatures in K
  * where the name says `_K`, pressures in Pa.
  */
-import { GAS_CONSTANT_CAL_MOL_K, KELVIN_AT_0C, STANDARD_ATMOSPHERE_PA } from './constants'
+import { GAS_CONSTANT_CAL_MOL_K, GAS_CONSTANT_J_MOL_K, KELVIN_AT_0C, STANDARD_ATMOSPHERE_PA } from './constants'
 import { assertInRange } from './ranges'
 
 /** Antoine constants, log10(P/Pa) = A − B/(T/K + C). Poling, Prausnitz & O'Connell, 5th ed. */
@@ -33,7 +33,103 @@ const NRTL_ETHANOL_WATER = { A12_cal_mol: -57.9601, A21_cal_mol: 1241.7396, alph
 /** Wilson parameters, ChemSep set: Λij = exp(aij + bij/T). */
 const WILSON_ETHANOL_WATER = { a12: -1.17693, b12_K: -192.381, a21: 1.17693, b21_K: -480.801 } as const
 
-export type ActivityModel = 'nrtl' | 'wilson'
+/**
+ * 'nrtl': the DECHEMA set, regressed on boiling data near 1 atm (bubble points, the azeotrope).
+ * 'glass': NRTL refitted at each temperature to dilute-solution data valid at 0–40 °C
+ * (activityCoefficientsGlass below) — the set every glass-temperature computation uses.
+ * 'wilson': the ChemSep Wilson set, an independent 1 atm cross-check.
+ */
+export type ActivityModel = 'nrtl' | 'glass' | 'wilson'
+
+/**
+ * Henry's-law solubility of ethanol in water at 298.15 K, Hcp = 1.9 mol/(m³·Pa), and its
+ * temperature dependence d ln Hcp / d(1/T) = 6400 K: the recommended literature-review values in
+ * Sander, "Compilation of Henry's law constants (version 4.0) for water as solvent", Atmos. Chem.
+ * Phys. 15, 4399 (2015), entry for ethanol (CAS 64-17-5), citing Sander et al. (2011); the
+ * compilation's reviews and measurements lie at 1.7–2.0 mol/(m³·Pa) and 5700–6600 K.
+ */
+const HENRY_ETHANOL_WATER = { Hcp298_mol_m3_Pa: 1.9, dlnH_dInvT_K: 6400, spreadRelative: 0.08 } as const
+
+/** Density of liquid water, kg/m³, from the Kell-type cubic through 0, 20 and 40 °C (999.84, 998.21, 992.22; IAPWS-95 — from memory). */
+function waterDensity_kg_m3(tempC: number): number {
+  return 999.84 + tempC * (0.0171 + tempC * (-0.006085 + tempC * 0.0000297))
+}
+
+/**
+ * Infinite-dilution activity coefficient of ethanol in water from Henry's law: the Henry
+ * volatility K = p/x = c_w / Hcp (c_w = molar concentration of water) divided by ethanol's vapour
+ * pressure, γ1∞ = K / P1sat. Sander (2015) and Antoine (Poling et al.). At 25 °C: γ1∞ ≈ 3.7; it
+ * rises with temperature (≈ 2.6 at 0 °C, 4.5 at 40 °C), as the exothermic mixing of dilute
+ * ethanol with water requires. Valid 273.15–313.15 K (the Henry data's range).
+ */
+export function ethanolDiluteGammaFromHenry(T_K: number): number {
+  assertInRange('T_K', T_K, ANTOINE_MODEL_MIN_T_K, 313.15, 'K')
+  return henryGamma(T_K, 1)
+}
+
+function henryGamma(T_K: number, hcpFactor: number): number {
+  const H = hcpFactor * HENRY_ETHANOL_WATER.Hcp298_mol_m3_Pa * Math.exp(HENRY_ETHANOL_WATER.dlnH_dInvT_K * (1 / T_K - 1 / 298.15))
+  const cWater = (waterDensity_kg_m3(T_K - KELVIN_AT_0C) / 18.015) * 1000 // mol/m³
+  const p1s = 10 ** (ANTOINE_ETHANOL.A - ANTOINE_ETHANOL.B / (T_K + ANTOINE_ETHANOL.C))
+  return cWater / H / p1s
+}
+
+/** Uncertainty knobs of the glass-temperature set: multiply Henry's Hcp and γ2∞ (1 = nominal). */
+export interface GlassSetFactors {
+  henry?: number
+  waterDiluteGamma?: number
+}
+
+/**
+ * NRTL parameters (τ12, τ21, α = DECHEMA's 0.2937) at glass temperature, solved so that
+ *  - ln γ1∞ = τ21 + τ12 exp(−α τ12) equals the Henry's-law value (ethanolDiluteGammaFromHenry), and
+ *  - ln γ2∞ = τ12 + τ21 exp(−α τ21) keeps the DECHEMA set's value for water in ethanol (that end of
+ *    the set is tied to the azeotrope data, which sit at high ethanol content).
+ * Two equations, two unknowns, Newton's method from the DECHEMA values (converges in < 8 steps).
+ */
+function glassNrtlParameters(T_K: number, factors: GlassSetFactors = {}): { tau12: number, tau21: number, alpha12: number } {
+  const alpha = NRTL_ETHANOL_WATER.alpha12
+  const key = `${T_K}|${factors.henry ?? 1}|${factors.waterDiluteGamma ?? 1}`
+  const hit = glassParamCache.get(key)
+  if (hit) return hit
+  const L1 = Math.log(henryGamma(T_K, 1 / (factors.henry ?? 1)))
+  const L2 = Math.log(nrtl(1, T_K).gamma2 * (factors.waterDiluteGamma ?? 1))
+  const RT = GAS_CONSTANT_CAL_MOL_K * T_K
+  let t12 = NRTL_ETHANOL_WATER.A12_cal_mol / RT
+  let t21 = NRTL_ETHANOL_WATER.A21_cal_mol / RT
+  for (let i = 0; i < 30; i++) {
+    const e12 = Math.exp(-alpha * t12)
+    const e21 = Math.exp(-alpha * t21)
+    const f1 = t21 + t12 * e12 - L1
+    const f2 = t12 + t21 * e21 - L2
+    const a = e12 * (1 - alpha * t12) // ∂f1/∂τ12
+    const b = 1 // ∂f1/∂τ21
+    const c = 1 // ∂f2/∂τ12
+    const d = e21 * (1 - alpha * t21) // ∂f2/∂τ21
+    const det = a * d - b * c
+    const d12 = (f1 * d - b * f2) / det
+    const d21 = (a * f2 - c * f1) / det
+    t12 -= d12
+    t21 -= d21
+    if (Math.abs(d12) + Math.abs(d21) < 1e-13) break
+  }
+  const out = { tau12: t12, tau21: t21, alpha12: alpha }
+  if (glassParamCache.size > 5000) glassParamCache.clear()
+  glassParamCache.set(key, out)
+  return out
+}
+const glassParamCache = new Map<string, { tau12: number, tau21: number, alpha12: number }>()
+
+/**
+ * Activity coefficients at glass temperature (0–40 °C): NRTL with glassNrtlParameters(T).
+ * Sources: Sander (2015) for dilute ethanol, DECHEMA for dilute water; see docs/science.md for what
+ * is and is not checked. Valid 273.15–313.15 K.
+ */
+export function activityCoefficientsGlass(x1: number, T_K: number, factors: GlassSetFactors = {}): ActivityCoefficients {
+  assertInRange('x1', x1, 0, 1, '(mole fraction)')
+  assertInRange('T_K', T_K, ANTOINE_MODEL_MIN_T_K, 313.15, 'K')
+  return nrtlTau(x1, glassNrtlParameters(T_K, factors))
+}
 
 export interface ActivityCoefficients {
   gamma1: number
@@ -72,12 +168,16 @@ export function activityCoefficientsNrtl(x1: number, T_K: number): ActivityCoeff
 }
 
 function nrtl(x1: number, T_K: number): ActivityCoefficients {
-  const x2 = 1 - x1
   const RT = GAS_CONSTANT_CAL_MOL_K * T_K
-  const t12 = NRTL_ETHANOL_WATER.A12_cal_mol / RT
-  const t21 = NRTL_ETHANOL_WATER.A21_cal_mol / RT
-  const G12 = Math.exp(-NRTL_ETHANOL_WATER.alpha12 * t12)
-  const G21 = Math.exp(-NRTL_ETHANOL_WATER.alpha12 * t21)
+  return nrtlTau(x1, { tau12: NRTL_ETHANOL_WATER.A12_cal_mol / RT, tau21: NRTL_ETHANOL_WATER.A21_cal_mol / RT, alpha12: NRTL_ETHANOL_WATER.alpha12 })
+}
+
+function nrtlTau(x1: number, p: { tau12: number, tau21: number, alpha12: number }): ActivityCoefficients {
+  const x2 = 1 - x1
+  const t12 = p.tau12
+  const t21 = p.tau21
+  const G12 = Math.exp(-p.alpha12 * t12)
+  const G21 = Math.exp(-p.alpha12 * t21)
   const d1 = x1 + x2 * G21
   const d2 = x2 + x1 * G12
   const lng1 = x2 * x2 * (t21 * (G21 / d1) ** 2 + (t12 * G12) / (d2 * d2))
@@ -105,7 +205,8 @@ function wilson(x1: number, T_K: number): ActivityCoefficients {
   return { gamma1: Math.exp(-Math.log(s1) + x2 * common), gamma2: Math.exp(-Math.log(s2) - x1 * common) }
 }
 
-function gammas(x1: number, T_K: number, model: ActivityModel): ActivityCoefficients {
+function gammas(x1: number, T_K: number, model: ActivityModel, factors?: GlassSetFactors): ActivityCoefficients {
+  if (model === 'glass') return nrtlTau(x1, glassNrtlParameters(T_K, factors))
   return model === 'wilson' ? wilson(x1, T_K) : nrtl(x1, T_K)
 }
 
@@ -134,10 +235,10 @@ export function vapourState(x1: number, T_K: number, model: ActivityModel = 'nrt
 }
 
 /** Saturation pressures and γ without range checks, for inner loops (callers check once). */
-export function vapourStateUnchecked(x1: number, T_K: number, model: ActivityModel = 'nrtl'): VapourState {
+export function vapourStateUnchecked(x1: number, T_K: number, model: ActivityModel = 'nrtl', factors?: GlassSetFactors): VapourState {
   const p1s = 10 ** (ANTOINE_ETHANOL.A - ANTOINE_ETHANOL.B / (T_K + ANTOINE_ETHANOL.C))
   const p2s = 10 ** (ANTOINE_WATER.A - ANTOINE_WATER.B / (T_K + ANTOINE_WATER.C))
-  const { gamma1, gamma2 } = gammas(x1, T_K, model)
+  const { gamma1, gamma2 } = gammas(x1, T_K, model, factors)
   const pE = x1 * gamma1 * p1s
   const pW = (1 - x1) * gamma2 * p2s
   const total = pE + pW
@@ -226,4 +327,20 @@ export function isothermalAzeotropeMoleFraction(T_K: number, model: ActivityMode
     else hi = mid
   }
   return 0.5 * (lo + hi)
+}
+
+/**
+ * Molar enthalpy of vaporisation from the Antoine equation by Clausius–Clapeyron,
+ * L = R ln10 · B T² / (T + C)², J/mol (ideal vapour, liquid volume neglected). At 25 °C it gives
+ * 42.8 kJ/mol for ethanol and 44.1 kJ/mol for water (tabulated 42.3 and 44.0 — from memory).
+ */
+export function vaporisationEnthalpy_J_mol(species: 'ethanol' | 'water', T_K: number): number {
+  const a = species === 'ethanol' ? ANTOINE_ETHANOL : ANTOINE_WATER
+  return (GAS_CONSTANT_J_MOL_K * Math.LN10 * a.B * T_K * T_K) / ((T_K + a.C) ** 2)
+}
+
+/** d ln P_sat / dT from the Antoine equation, 1/K. */
+export function saturationPressureLogSlope_1_K(species: 'ethanol' | 'water', T_K: number): number {
+  const a = species === 'ethanol' ? ANTOINE_ETHANOL : ANTOINE_WATER
+  return (Math.LN10 * a.B) / ((T_K + a.C) ** 2)
 }

@@ -8,8 +8,8 @@ describe('GET /api/science/film', () => {
     const res = await anon.get('/api/science/film?abv=12&tempC=20&sugarGL=0')
     expect(res.status).toBe(200)
     const f = res.body
-    expect(f.solventMassFraction).toBeCloseTo(0.09641, 4) // OIML R 22 formula at 20 °C: 12 % vol ↔ 9.641 % mass (science-sources, computed)
-    expect(f.density_kg_m3).toBeCloseTo(982.35, 1) // OIML R 22 formula at 20 °C (science-sources, computed)
+    expect(f.solventMassFraction).toBeCloseTo(0.09641, 4) // OIML R 22 formula at 20 °C: 12 % vol ↔ 9.641 % mass (evaluated here; docs/science.md §1)
+    expect(f.density_kg_m3).toBeCloseTo(982.35, 1) // OIML R 22 formula at 20 °C (OIML R 22 (1975) formula evaluated here; docs/science.md §1)
     expect(f.surfaceTensionBulk_mN_m).toBeGreaterThan(45)
     expect(f.surfaceTensionBulk_mN_m).toBeLessThan(54) // model hydroalcoholic solution, 12 % vol ≈ 49.5 mN/m (secondary source in science-sources §2), ± a few
     expect(f.surfaceTensionFilm_mN_m).toBeGreaterThan(f.surfaceTensionBulk_mN_m)

@@ -59,9 +59,9 @@ describe('OIML R 22 density', () => {
 
 describe('ABV ↔ mass fraction ↔ mole fraction', () => {
   it.each([
-    [12, 0.09641, 982.35], // science-sources.md [computed] from OIML R 22
-    [13.5, 0.10865, null], // science-sources.md [computed] from OIML R 22
-    [40, 0.333, 948.05], // science-sources.md [computed] from OIML R 22
+    [12, 0.09641, 982.35], // OIML R 22 (1975) density formula evaluated at 20 °C (docs/science.md §1)
+    [13.5, 0.10865, null], // OIML R 22 (1975) density formula evaluated at 20 °C (docs/science.md §1)
+    [40, 0.333, 948.05], // OIML R 22 (1975) density formula evaluated at 20 °C (docs/science.md §1)
   ])('%s %% vol ↔ mass fraction and density', (abv, p, rho) => {
     const w = massFractionFromAbv(abv)
     expect(w).toBeCloseTo(p, 5) // OIML R 22 cross-check values (recomputed here)
@@ -86,7 +86,7 @@ describe('ABV ↔ mass fraction ↔ mole fraction', () => {
   })
 
   it('converts mole fraction with the molar masses', () => {
-    // 95.6 % mass ↔ x = 0.894 (handbook azeotrope composition, Perry's via science-sources.md)
+    // 95.6 % mass ↔ x = 0.894 (azeotrope at 1 atm, Perry's Chemical Engineers' Handbook VLE table — from memory)
     expect(moleFractionFromMassFraction(0.956)).toBeCloseTo(0.8946, 3)
   })
 

@@ -1,134 +1,125 @@
 import { describe, it, expect } from 'vitest'
-import { GRAVITY_M_S2 } from '../../../shared/science/constants'
+import fc from 'fast-check'
 import { computeFilm } from '../../../shared/science/glassModel'
-import { QUALITY_DISCLAIMER, describePour, predictTears } from '../../../shared/science/predictions'
+import { QUALITY_DISCLAIMER, abvText, describePour, rangeText } from '../../../shared/science/predictions'
 
-const wine = { abvPctVol: 12.5, tempC: 18, sugarGL: 3 }
+const text = (input: Parameters<typeof computeFilm>[0], unit: 'C' | 'F' = 'C') => describePour(computeFilm(input), { temperatureUnit: unit }).join(' ')
+const plain = (s: string) => s.replace(/\u00a0/g, ' ')
 
-describe('scaling-law predictions', () => {
-  it('are self-consistent: zero lubrication flux at h*, and climb time = evaporation time', () => {
-    const r = computeFilm(wine)
-    const p = r.predictions
-    const sinB = Math.sin((70 * Math.PI) / 180)
-    const tau = p.marangoniStress_Pa
-    const mu = r.viscosity_mPa_s * 1e-3
-    const h = p.filmThickness_um * 1e-6
-    const q = (tau * h * h) / (2 * mu) - (r.density_kg_m3 * GRAVITY_M_S2 * sinB * h ** 3) / (3 * mu)
-    expect(Math.abs(q)).toBeLessThan(1e-15) // thin-film lubrication balance (Fournier & Cazabat 1992; Hosoi & Bush 2001)
-    const climbTime = p.clearBandHeight_mm / p.climbSpeed_mm_s
-    const evapTime = (0.05 * r.density_kg_m3 * p.climbingFilmThickness_um * 1e-6) / r.totalFlux_kg_m2_s
-    expect(climbTime / evapTime).toBeCloseTo(1, 9)
+describe('describePour: the numbers in the text are the model\'s', () => {
+  it('gives the band, first tears, count and speed as the predicted ranges, not two significant figures of one value', () => {
+    const r = computeFilm({ abvPctVol: 12.5, tempC: 18, sugarGL: 3 })
+    const t = describePour(r).join(' ')
+    const g = r.predictions.ranges
+    expect(t).toContain(rangeText(g.clearBandHeight_mm!, 'mm'))
+    expect(t).toContain(rangeText(g.tearOnset_s!, 's'))
+    expect(t).toContain(rangeText(g.tearFallSpeed_mm_s!, 'mm/s'))
+    expect(t).toContain(`${Math.round(g.tearsAround!.low)}–${Math.round(g.tearsAround!.high)} around the glass`)
+    expect(t).not.toContain('µm') // film thickness is not something a guest can check
+    expect(t).toContain('Marangoni')
+    expect(t).toContain(r.surfaceTensionBulk_mN_m.toFixed(1))
+    expect(t).not.toMatch(/NaN|undefined|Infinity|null/)
   })
 
-  it('give a table wine plausible magnitudes', () => {
-    const p = computeFilm(wine).predictions
-    expect(p.tearsExpected).toBe(true)
-    // orders of magnitude reported for tears of wine (films of tens of µm, bands of ~1 cm, tears of ~mm
-    // sliding at mm/s, forming within tens of seconds): common practice, no single source
-    expect(p.filmThickness_um).toBeGreaterThan(10)
-    expect(p.filmThickness_um).toBeLessThan(200)
-    expect(p.clearBandHeight_mm).toBeGreaterThan(3)
-    expect(p.clearBandHeight_mm).toBeLessThan(30)
-    expect(p.tearFallSpeed_mm_s ?? 0).toBeGreaterThan(0.5)
-    expect(p.tearFallSpeed_mm_s ?? 0).toBeLessThan(50)
-    expect(p.tearOnset_s ?? 0).toBeGreaterThan(1)
-    expect(p.tearOnset_s ?? 0).toBeLessThan(120)
-    expect(p.capillaryLength_mm).toBeCloseTo(Math.sqrt((computeFilm(wine).surfaceTensionBulk_mN_m * 1e-3) / (computeFilm(wine).density_kg_m3 * GRAVITY_M_S2)) * 1e3, 10)
+  it('states the ABV exactly as the lab sheet does', () => {
+    expect(plain(text({ abvPctVol: 13.6, tempC: 16, sugarGL: 2 }))).toContain('At 13.6 % ABV')
+    expect(plain(text({ abvPctVol: 40, tempC: 20, sugarGL: 0, kind: 'spirit' }))).toContain('At 40 % ABV')
+    expect(abvText(12.45)).toBe('12.45')
+    expect(abvText(14)).toBe('14')
   })
 
-  it('expect no climbing film at 0 % vol and no tears at or beyond the azeotrope', () => {
-    const water = computeFilm({ abvPctVol: 0, tempC: 20, sugarGL: 0 }).predictions
-    expect(water.tearsExpected).toBe(false)
-    expect(water.clearBandHeight_mm).toBe(0)
-    expect(water.tearFallSpeed_mm_s).toBeNull()
-    for (const abv of [97, 99, 100]) {
-      const p = computeFilm({ abvPctVol: abv, tempC: 20, sugarGL: 0 }).predictions
-      expect(p.tearsExpected).toBe(false)
-      expect(p.tearOnset_s).toBeNull()
-    }
+  it('says where its numbers hold: clean glass, still air, the room\'s humidity and temperature', () => {
+    const t = plain(text({ abvPctVol: 12, tempC: 14, sugarGL: 0, room: { relativeHumidityPct: 62, airTempC: 23 } }))
+    expect(t).toContain('clean glass in still air at 62 % humidity and 23 °C')
   })
 
-  it('slow the tears with sugar at the same ABV (sugar slows tears, it does not make them)', () => {
-    const dry = computeFilm({ abvPctVol: 19, tempC: 20, sugarGL: 0 })
-    const sweet = computeFilm({ abvPctVol: 19, tempC: 20, sugarGL: 100 })
-    expect(sweet.predictions.tearFallSpeed_mm_s ?? Infinity).toBeLessThan(dry.predictions.tearFallSpeed_mm_s ?? 0)
-    expect(sweet.predictions.tearFallSpeed_mm_s ?? Infinity).toBeLessThan(sweet.tearFallSpeedUnsweetened_mm_s ?? 0)
-    // sugar does not create the effect: at 0 % vol a syrup shows no climbing film
-    expect(computeFilm({ abvPctVol: 0, tempC: 20, sugarGL: 300 }).predictions.tearsExpected).toBe(false)
+  it('speaks Fahrenheit when the venue does', () => {
+    expect(plain(text({ abvPctVol: 12.5, tempC: 18, sugarGL: 3 }, 'F'))).toContain('64 °F')
   })
 
-  it('sweet fortified wine vs dry spirit: the order follows viscosity and Marangoni stress, not sugar alone', () => {
-    const port = computeFilm({ abvPctVol: 19, tempC: 20, sugarGL: 100 })
-    const spirit = computeFilm({ abvPctVol: 40, tempC: 20, sugarGL: 0 })
-    // Bingham & Jackson 1917 (33 % mass ethanol ≈ 2.8 mPa·s) with the sucrose table (×1.3 at 100 g/L, from
-    // memory): the 40 % spirit is the more viscous liquid, and its film has the weaker Marangoni pull,
-    // so in this model its tears are the slower ones (see docs/science.md, "Where physics and practice differ").
-    expect(spirit.viscosity_mPa_s).toBeGreaterThan(port.viscosity_mPa_s)
-    expect(spirit.deltaSigma_mN_m).toBeLessThan(port.deltaSigma_mN_m)
-    expect(spirit.predictions.tearFallSpeed_mm_s ?? Infinity).toBeLessThan(port.predictions.tearFallSpeed_mm_s ?? 0)
-    // a liqueur-sweet fortified wine (19 %, 300 g/L) is viscous enough to fall slower than the dry spirit
-    const sweeter = computeFilm({ abvPctVol: 19, tempC: 20, sugarGL: 300 })
-    expect(sweeter.predictions.tearFallSpeed_mm_s ?? Infinity).toBeLessThan(spirit.predictions.tearFallSpeed_mm_s ?? 0)
-  })
-
-  it('thin the film on a vertical wall relative to a leaning one (gravity component sin β)', () => {
-    const vertical = computeFilm({ ...wine, wallAngleDeg: 90 }).predictions
-    const leaning = computeFilm({ ...wine, wallAngleDeg: 60 }).predictions
-    expect(vertical.filmThickness_um).toBeLessThan(leaning.filmThickness_um)
-  })
-
-  it('reject impossible inputs with RangeError', () => {
-    const base = { deltaSigma_mN_m: 3, surfaceTension_mN_m: 48, density_kg_m3: 980, viscosity_mPa_s: 1.5, evaporationFlux_kg_m2_s: 2e-4 }
-    expect(() => predictTears({ ...base, wallAngleDeg: 5 })).toThrow(RangeError)
-    expect(() => predictTears({ ...base, viscosity_mPa_s: Number.NaN })).toThrow(RangeError)
-    expect(() => predictTears({ ...base, deltaSigma_mN_m: Number.POSITIVE_INFINITY })).toThrow(RangeError)
+  it('formats ranges and collapses equal ends', () => {
+    expect(plain(rangeText({ low: 6.14, high: 19.2 }, 'mm'))).toBe('6.1–19 mm')
+    expect(plain(rangeText({ low: 2.31, high: 2.34 }, 'mm'))).toBe('about 2.3 mm')
   })
 })
 
-describe('describePour', () => {
-  it('states the pour’s own numbers and the reason', () => {
-    const r = computeFilm(wine)
-    const text = describePour(r).join(' ')
-    const p = r.predictions
-    expect(text).toContain(`${Math.round(p.clearBandHeight_mm)} mm`)
-    expect(text).toContain('µm')
-    expect(text).toContain('mm/s')
-    expect(text).toContain('Marangoni')
-    expect(text).toContain('evaporates')
-    expect(text).toContain(r.surfaceTensionBulk_mN_m.toFixed(1))
-    expect(text).not.toMatch(/NaN|undefined|Infinity/)
-  })
-
-  it('always ends with the quality statement', () => {
-    for (const abv of [0, 5, 12, 19, 40, 60, 97, 100]) {
-      for (const sugarGL of [0, 120]) {
-        const lines = describePour(computeFilm({ abvPctVol: abv, tempC: 18, sugarGL }))
+describe('describePour: every case says what the model computes', () => {
+  it('always ends with the quality statement and never prints a broken number', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 100, noNaN: true }), fc.double({ min: 0, max: 40, noNaN: true }), fc.double({ min: 0, max: 300, noNaN: true }), fc.double({ min: 0, max: 100, noNaN: true }), fc.constantFrom('still', 'sparkling', 'fortified', 'spirit', 'cider', 'beer', 'low_alcohol', 'other' as const), (abv, t, s, rh, kind) => {
+        const r = computeFilm({ abvPctVol: abv, tempC: t, sugarGL: s, kind, room: { relativeHumidityPct: rh, airTempC: 21 } })
+        const lines = describePour(r)
+        const all = lines.join(' ')
         expect(lines[lines.length - 1]).toBe(QUALITY_DISCLAIMER)
-        expect(QUALITY_DISCLAIMER).toMatch(/quality/)
-        expect(QUALITY_DISCLAIMER).toMatch(/sugar only slows them/)
-        expect(lines.join(' ')).not.toMatch(/NaN|undefined|Infinity/)
-      }
-    }
+        expect(all).not.toMatch(/NaN|undefined|Infinity|null/)
+        // no sentence contradicts the prediction beside it
+        if (r.predictions.tearsExpected) {
+          expect(all).toMatch(/tears —|legs —/)
+          expect(all).not.toMatch(/no distinct tears|no tears|no climbing film/)
+        }
+        else {
+          expect(all).not.toMatch(/tears —|legs —/)
+        }
+      }),
+      { numRuns: 60 },
+    )
   })
 
-  it('says there is no climbing film at 0 % vol', () => {
-    expect(describePour(computeFilm({ abvPctVol: 0, tempC: 20, sugarGL: 0 })).join(' ')).toMatch(/no climbing film/)
+  it('no alcohol: no climbing film', () => {
+    expect(text({ abvPctVol: 0, tempC: 20, sugarGL: 0 })).toMatch(/no climbing film/)
   })
 
-  it('says there are no tears from this effect at the azeotrope and beyond', () => {
-    for (const abv of [97, 100]) {
-      expect(describePour(computeFilm({ abvPctVol: abv, tempC: 20, sugarGL: 0 })).join(' ')).toMatch(/no tears from this effect/)
-    }
+  it('beer: foam rings, not tears', () => {
+    expect(text({ abvPctVol: 5, tempC: 6, sugarGL: 0, kind: 'beer' })).toMatch(/rings of foam.*not tears/)
   })
 
-  it('explains the slower tears of a sweet wine by viscosity', () => {
-    const text = describePour(computeFilm({ abvPctVol: 19, tempC: 18, sugarGL: 100 })).join(' ')
-    expect(text).toMatch(/100 g\/L of sugar/)
-    expect(text).toMatch(/viscous/)
-    expect(text).toMatch(/slower/)
+  it('a dealcoholised wine: the surface is held still', () => {
+    expect(text({ abvPctVol: 0.4, tempC: 10, sugarGL: 30, kind: 'low_alcohol' })).toMatch(/hold still: expect no clear band and no distinct tears/)
   })
 
-  it('can speak Fahrenheit', () => {
-    expect(describePour(computeFilm(wine), { temperatureUnit: 'F' }).join(' ')).toContain('64 °F')
+  it('sparkling: the foam comes first', () => {
+    expect(text({ abvPctVol: 12, tempC: 8, sugarGL: 8, kind: 'sparkling' })).toMatch(/once the foam has settled/)
+  })
+
+  it('a humid room that gives a strong pour water says so', () => {
+    const r = computeFilm({ abvPctVol: 70, tempC: 20, sugarGL: 0, kind: 'spirit', room: { relativeHumidityPct: 85, airTempC: 22 } })
+    expect(r.waterFlux_kg_m2_s).toBeLessThan(0)
+    if (r.predictions.tearsExpected) expect(describePour(r).join(' ')).toMatch(/takes water up from the air/)
+  })
+})
+
+describe('a 12 % table wine, a 20 % fortified wine and a 40 % spirit in the same glass and room', () => {
+  const room = { relativeHumidityPct: 50, airTempC: 21 }
+  const wine = computeFilm({ abvPctVol: 12, tempC: 16, sugarGL: 2, kind: 'still', room })
+  const port = computeFilm({ abvPctVol: 20, tempC: 16, sugarGL: 100, kind: 'fortified', room })
+  const spirit = computeFilm({ abvPctVol: 40, tempC: 16, sugarGL: 0, kind: 'spirit', room })
+
+  it('all show tears; the spirit\'s and the sweet wine\'s fall slower than the table wine\'s, as the trade sees', () => {
+    for (const r of [wine, port, spirit]) expect(r.predictions.tearsExpected).toBe(true)
+    // the trade: whisky, rum and port show the slowest, most prominent legs (common practice, no source)
+    expect(spirit.predictions.tearFallSpeed_mm_s!).toBeLessThan(wine.predictions.tearFallSpeed_mm_s!)
+    expect(port.predictions.tearFallSpeed_mm_s!).toBeLessThan(wine.predictions.tearFallSpeed_mm_s!)
+    // viscosity is why (Bingham & Jackson 1917: 2.9 mPa·s at 40 % mass vs 1.5 at 10 % mass, 20 °C; ×1.3 for 100 g/L sucrose)
+    expect(spirit.viscosity_mPa_s).toBeGreaterThan(wine.viscosity_mPa_s)
+    expect(port.viscosity_mPa_s).toBeGreaterThan(wine.viscosity_mPa_s)
+  })
+
+  it('the spirit\'s text compares it with a table wine in the words its numbers give', () => {
+    const t = plain(describePour(spirit).join(' '))
+    const slower = Math.round(100 * (1 - spirit.predictions.tearFallSpeed_mm_s! / computeFilm({ abvPctVol: 12, tempC: 16, sugarGL: 0, kind: 'still', room }).predictions.tearFallSpeed_mm_s!))
+    expect(t).toContain('Against a 12 % table wine in the same glass and room')
+    expect(t).toContain(`tears that fall about ${slower} % slower`)
+    expect(t).not.toMatch(/weaker and later/)
+  })
+
+  it('the sweet wine\'s text puts its slower tears down to sugar\'s viscosity, with the model\'s factor', () => {
+    const t = plain(describePour(port).join(' '))
+    expect(t).toContain('100 g/L of sugar')
+    expect(t).toContain(`${Number(port.sugarViscosityFactor.toFixed(1))} times as viscous`)
+  })
+
+  it('the index follows the climbing flux: the table wine highest', () => {
+    expect(wine.filmActivityIndex).toBeGreaterThan(spirit.filmActivityIndex)
+    expect(wine.filmActivityIndex).toBeGreaterThan(port.filmActivityIndex)
   })
 })
