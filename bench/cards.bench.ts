@@ -5,7 +5,7 @@
  */
 import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
-import { computeFilm, ethanolGrams, flightTotals } from '../shared/science'
+import { DEFAULT_ROOM_AIR, computeFilm, ethanolGrams, flightTotals } from '../shared/science'
 import { buildFlightCard } from '../shared/cards'
 import { renderCardsPdf } from '../server/cards/cardPdf'
 
@@ -28,7 +28,7 @@ const pours = invented.map(([name, kind, abv, sugar, temp, ml], i) => {
 })
 const totals = flightTotals(pours, 14)
 const venue = { name: 'Bench Tasting Room', address: '1 Bench Lane', cautions: 'Do not drive.\nLegal age only.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC' }
-const card = (guest?: string) => buildFlightCard({ venue, flight: { id: 1, name: 'Bench flight', version: 1, summary: 'Six pours', pours, totals }, publicUrl: 'http://localhost:3000/pour/1', guestName: guest })
+const card = (guest?: string) => buildFlightCard({ venue, flight: { id: 1, name: 'Bench flight', version: 1, summary: 'Six pours', pours, totals }, publicUrl: 'http://localhost:3000/pour/1', guestName: guest, room: { air: DEFAULT_ROOM_AIR, source: 'venue', readAt: null } })
 
 async function median(label: string, runs: number, fn: () => Promise<unknown>) {
   const times: number[] = []

@@ -3,11 +3,11 @@
  * pour is, how much ethanol it holds, what the glass model predicts and what to look for.
  * Pure: the caller loads the flight and the venue.
  */
-import { describePour, type FilmResult } from './science'
+import { describePour, type FilmResult, type RoomAir } from './science'
 import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
 import type { GlassShape } from './glassDiagram'
-import type { FlightCard } from './types/cards'
+import type { CardRoom, FlightCard } from './types/cards'
 import { cautionLines } from './cautions'
 import { standardDrinkDefinition, standardDrinksLine } from './utils/drinks'
 import type { RenderedText } from './types/content'
@@ -51,6 +51,26 @@ export interface CardFlightInput {
   intro?: RenderedText | null
 }
 
+/** The room's air the caller computed the pours for: the session's reading, or the venue's usual one. */
+export interface CardRoomInput {
+  air: RoomAir
+  source: CardRoom['source']
+  readAt: Date | string | null
+}
+
+/** "Room: 70 °F, 62 % RH — read for this session": the one line a card prints about the air it assumed. */
+function cardRoom(room: CardRoomInput, temperatureUnit: 'c' | 'f'): CardRoom {
+  const { relativeHumidityPct, airTempC } = room.air
+  const why = room.source === 'session' ? 'read for this session' : 'the room\'s usual air'
+  return {
+    relativeHumidityPct,
+    airTempC,
+    source: room.source,
+    readAt: room.readAt === null ? null : new Date(room.readAt).toISOString(),
+    text: `Room: ${formatTemperature(airTempC, temperatureUnit)}, ${Math.round(relativeHumidityPct)} % RH — ${why}`,
+  }
+}
+
 /** The papers a card prints on. */
 export const CARD_PAPERS = ['a5', 'half-letter'] as const
 export type CardPaper = (typeof CARD_PAPERS)[number]
@@ -87,7 +107,11 @@ const ALLERGEN_LABELS: Record<Allergen, string> = {
 /** Why it happens, said once per card (each pour's own numbers are in its lines). */
 const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film turns more watery and its surface tension rises above the rest of the pour. That stronger pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears. The ranges are for a clean glass in still air in this room; a draught or traces of detergent change them.'
 
-export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, guestName?: string | null, sessionLabel?: string | null }): FlightCard {
+/**
+ * `room` is the air the flight's pours were computed for (the caller passes the same one to the
+ * glass model), so what the card says it assumed is what its figures assume.
+ */
+export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, room: CardRoomInput, guestName?: string | null, sessionLabel?: string | null }): FlightCard {
   const { venue, flight } = opts
   const tempUnit = venue.temperatureUnit === 'f' ? 'F' : 'C'
   const pours = flight.pours.map((p) => {
@@ -130,6 +154,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       volumeText: formatVolume(flight.totals.volumeMl, venue.volumeUnit),
       definition: standardDrinkDefinition(venue),
     },
+    room: cardRoom(opts.room, venue.temperatureUnit),
     why: CARD_WHY,
     quality: 'Tears say nothing about quality: they come from alcohol and evaporation. Sugar slows them; it does not make them.',
     // The fixed block of responsible service (a manager cannot remove it), then the venue's own lines.

@@ -1,10 +1,12 @@
 import type { ProductKind } from './products'
+import type { DrinkKind } from './science/glassModel'
 import { ML_PER_US_FL_OZ, celsiusToFahrenheit, fahrenheitToCelsius } from './science/standardDrinks'
 
 /**
  * Default tasting-pour volumes by kind, mL, offered when a pour is added and used for the
  * "per pour" figures beside a product. Common practice, no source: tasting rooms pour about
- * 2 fl oz of wine, 1.5 fl oz of fortified wine, 0.75 fl oz of spirit, 4 fl oz of beer or cider.
+ * 2 fl oz of wine, 1.5 fl oz of fortified wine, 0.75 fl oz of spirit, 4 fl oz of beer or cider; a
+ * low- or no-alcohol drink is poured like the wine it stands in for.
  */
 export const DEFAULT_TASTING_POUR_ML: Record<ProductKind, number> = {
   still_wine: 60,
@@ -13,7 +15,24 @@ export const DEFAULT_TASTING_POUR_ML: Record<ProductKind, number> = {
   spirit: 22,
   beer: 120,
   cider: 120,
+  low_alcohol: 60,
   other: 60,
+}
+
+const DRINK_KIND_OF: Record<ProductKind, DrinkKind> = {
+  still_wine: 'still',
+  sparkling: 'sparkling',
+  fortified: 'fortified',
+  spirit: 'spirit',
+  beer: 'beer',
+  cider: 'cider',
+  low_alcohol: 'low_alcohol',
+  other: 'other',
+}
+
+/** The kind of drink the glass model is told about for a product of this kind (the one mapping). */
+export function drinkKindOf(kind: ProductKind): DrinkKind {
+  return DRINK_KIND_OF[kind]
 }
 
 type VolumeUnit = 'ml' | 'floz'

@@ -1,4 +1,4 @@
-export const PRODUCT_KINDS = ['still_wine', 'sparkling', 'fortified', 'spirit', 'beer', 'cider', 'other'] as const
+export const PRODUCT_KINDS = ['still_wine', 'sparkling', 'fortified', 'spirit', 'beer', 'cider', 'low_alcohol', 'other'] as const
 export type ProductKind = (typeof PRODUCT_KINDS)[number]
 export const PRODUCT_KIND_LABELS: Record<ProductKind, string> = {
   still_wine: 'Still wine',
@@ -7,6 +7,7 @@ export const PRODUCT_KIND_LABELS: Record<ProductKind, string> = {
   spirit: 'Spirit',
   beer: 'Beer',
   cider: 'Cider',
+  low_alcohol: 'Low or no alcohol',
   other: 'Other',
 }
 

@@ -11,7 +11,7 @@ export interface BuilderPour { key: number, productId: number, volumeMl: number,
 
 /** Which glass a new pour of each kind goes into by default, by the glass's name. */
 const GLASS_FOR_KIND: Record<ProductKind, RegExp> = {
-  sparkling: /flute/i, spirit: /nosing/i, fortified: /nosing/i, beer: /tumbler/i, cider: /tumbler/i, still_wine: /tulip|wine/i, other: /tulip|wine/i,
+  sparkling: /flute/i, spirit: /nosing/i, fortified: /nosing/i, beer: /tumbler/i, cider: /tumbler/i, still_wine: /tulip|wine/i, low_alcohol: /tulip|wine/i, other: /tulip|wine/i,
 }
 
 let nextKey = 1

@@ -94,6 +94,8 @@ function headerLines(card: FlightCard, fit: CardFit): Line[] {
 function footLines(card: FlightCard): Line[] {
   return [
     { font: FACES.bold, size: 8.5, color: INK, text: `This flight: ${card.totals.standardDrinks.toFixed(1)} standard drinks — ${card.totals.ethanolGrams.toFixed(1)} g of ethanol in ${card.totals.volumeText} (${card.totals.definition}).`, gap: 0 },
+    // The air the figures above assume: the host's reading for the session, or the venue's usual room.
+    { font: FACES.regular, size: 6.5, color: INK, text: card.room.text, gap: 1.5 },
     { font: FACES.regular, size: 6.5, color: SOFT, text: card.why, gap: 3 },
     { font: FACES.italic, size: 6.5, color: SOFT, text: card.quality, gap: 1.5 },
     { font: FACES.regular, size: 6.5, color: INK, text: card.cautions.join(' '), gap: 3 },

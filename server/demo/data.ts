@@ -35,6 +35,9 @@ export const DEMO_VENUE = {
     sat: [{ opens: '11:00', closes: '21:00' }],
     sun: [{ opens: '11:00', closes: '17:00' }],
   },
+  // A room by the sea: damper than the model's default, a little cooler (invented, like the venue).
+  roomHumidityPct: 62,
+  roomAirTempC: 20.5,
 }
 
 export const DEMO_USERS = [

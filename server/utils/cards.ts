@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import { renderCardsPdf, type CardFonts } from '../cards/cardPdf'
-import { buildFlightCard, type CardPaper } from '../../shared/cards'
+import { buildFlightCard, type CardPaper, type CardRoomInput } from '../../shared/cards'
 import type { FlightCard } from '../../shared/types/cards'
 import type { Venue } from '../db/schema/venues'
 import type { TastingSession } from '../db/schema/sessions'
@@ -28,18 +28,23 @@ export function cardFonts(): Promise<CardFonts> {
   return fonts
 }
 
-/** The card of one flight as staff print it; guest names and session come from the caller. */
-export async function flightCard(venue: Venue, flightId: number, extra: { guestName?: string | null, sessionLabel?: string | null } = {}): Promise<FlightCard> {
-  const view = await flightView(venue, await loadFlight(venue, flightId))
-  return buildFlightCard({ venue, flight: view, publicUrl: appLink(`/pour/${flightId}`), ...extra })
+/**
+ * The card of one flight as staff print it; guest names, session and the room's air come from the
+ * caller (the venue's usual air by default). The pours are computed in that same air.
+ */
+export async function flightCard(venue: Venue, flightId: number, extra: { guestName?: string | null, sessionLabel?: string | null, room?: CardRoomInput } = {}): Promise<FlightCard> {
+  const room = extra.room ?? venueRoom(venue)
+  const view = await flightView(venue, await loadFlight(venue, flightId), room.air)
+  return buildFlightCard({ venue, flight: view, publicUrl: appLink(`/pour/${flightId}`), guestName: extra.guestName, sessionLabel: extra.sessionLabel, room })
 }
 
 /**
  * One card per seated guest of a session (confirmed parties, and checked-in ones by the number
- * actually seated), in party order. With `names`, each card says whom it was poured for.
+ * actually seated), in party order. With `names`, each card says whom it was poured for. The pours
+ * assume the host's reading of the room for this session, if there is one yet.
  */
 export async function sessionCards(venue: Venue, session: TastingSession, names: boolean): Promise<FlightCard[]> {
-  const base = await flightCard(venue, session.flightId, { sessionLabel: `${formatLongDay(session.startsAt, venue)}, ${formatTime(session.startsAt, venue)}` })
+  const base = await flightCard(venue, session.flightId, { sessionLabel: `${formatLongDay(session.startsAt, venue)}, ${formatTime(session.startsAt, venue)}`, room: sessionRoom(venue, session) })
   const parties = await useDb().select({ b: tables.bookings, c: tables.checkIns }).from(tables.bookings)
     .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, tables.bookings.id))
     .where(and(eq(tables.bookings.sessionId, session.id), inArray(tables.bookings.state, ['confirmed', 'checked_in'])))

@@ -2,7 +2,7 @@ import { and, desc, eq, inArray } from 'drizzle-orm'
 import type { Product, ProductMeasurement } from '../db/schema/products'
 import type { Venue } from '../db/schema/venues'
 import type { Role } from '../../shared/roles'
-import { DEFAULT_TASTING_POUR_ML } from '../../shared/pours'
+import { DEFAULT_TASTING_POUR_ML, drinkKindOf } from '../../shared/pours'
 import type { MeasurementView, ProductView } from '../../shared/types/products'
 
 export interface ProductWithMeasurement extends Product { current: ProductMeasurement }
@@ -41,12 +41,13 @@ export async function loadProduct(venueId: number, id: number, history = false) 
 
 /**
  * The API's view of a product: its fields, its current measurement and what the glass model
- * derives from them for a default tasting pour at the product's serving temperature. The cost is
+ * derives from them for a default tasting pour at the product's serving temperature, in the venue's
+ * usual room air. The cost is
  * shown to managers only.
  */
 export function productView(p: ProductWithMeasurement & { history?: ProductMeasurement[] }, venue: Venue, role: Role): ProductView {
   const pourMl = DEFAULT_TASTING_POUR_ML[p.kind]
-  const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: p.servingTempC, volumeMl: pourMl }, venue)
+  const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: p.servingTempC, volumeMl: pourMl, kind: drinkKindOf(p.kind) }, venue, venueRoom(venue).air)
   const strip = (m: ProductMeasurement): MeasurementView => ({ id: m.id, abvPctVol: m.abvPctVol, residualSugarGL: m.residualSugarGL, lab: m.lab, method: m.method, measuredOn: m.measuredOn, notes: m.notes, recordedAt: m.createdAt.toISOString() })
   return {
     id: p.id,

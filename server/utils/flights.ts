@@ -2,7 +2,8 @@ import { and, asc, count, eq, inArray, ne } from 'drizzle-orm'
 import type { Venue } from '../db/schema/venues'
 import type { Flight, Glass } from '../db/schema/flights'
 import type { PourInput } from '../../shared/schemas/flights'
-import { flightTotals } from '../../shared/science'
+import { flightTotals, type RoomAir } from '../../shared/science'
+import { drinkKindOf } from '../../shared/pours'
 import type { FlightPreview, FlightView, GlassView } from '../../shared/types/flights'
 
 export interface PourSpec { productId: number, volumeMl: number, glassId: number, servingTempC: number, note?: string | null }
@@ -23,7 +24,7 @@ async function loadPourContext(venue: Venue, specs: PourSpec[]) {
 }
 type PourContext = Awaited<ReturnType<typeof loadPourContext>>
 
-function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]): FlightPreview {
+function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[], room: RoomAir): FlightPreview {
   const fields: Record<string, string> = {}
   specs.forEach((s, i) => {
     if (!ctx.products.has(s.productId)) fields[`pours.${i}.productId`] = 'No such product.'
@@ -34,7 +35,7 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]): FlightP
   const pours = specs.map((s, i) => {
     const p = ctx.products.get(s.productId)!
     const g = ctx.glasses.get(s.glassId)!
-    const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: s.servingTempC, volumeMl: s.volumeMl, wallAngleDeg: g.wallAngleDeg }, venue)
+    const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: s.servingTempC, volumeMl: s.volumeMl, wallAngleDeg: g.wallAngleDeg, kind: drinkKindOf(p.kind) }, venue, room)
     return {
       position: i + 1,
       productId: p.id,
@@ -73,7 +74,7 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[]): FlightP
  * totals against the venue's per-guest limit. Unknown products or glasses are a 400 on the pour.
  */
 export async function computePours(venue: Venue, specs: PourSpec[]): Promise<FlightPreview> {
-  return computeWith(venue, await loadPourContext(venue, specs), specs)
+  return computeWith(venue, await loadPourContext(venue, specs), specs, venueRoom(venue).air)
 }
 
 export const glassView = (g: Glass): GlassView => ({ id: g.id, name: g.name, bowlDiameterMm: g.bowlDiameterMm, wallAngleDeg: g.wallAngleDeg, fillHeightMm: g.fillHeightMm })
@@ -85,8 +86,11 @@ export async function loadFlight(venue: Venue, id: number, opts: { publishedOnly
   return flight
 }
 
-/** Full views of several flights in a fixed number of queries (pours, products, glasses, sessions). */
-export async function flightViews(venue: Venue, flights: Flight[]): Promise<FlightView[]> {
+/**
+ * Full views of several flights in a fixed number of queries (pours, products, glasses, sessions),
+ * their pours computed in `room` (the venue's usual air unless the caller has a session's reading).
+ */
+export async function flightViews(venue: Venue, flights: Flight[], room: RoomAir = venueRoom(venue).air): Promise<FlightView[]> {
   if (!flights.length) return []
   const db = useDb()
   const ids = flights.map(f => f.id)
@@ -111,13 +115,13 @@ export async function flightViews(venue: Venue, flights: Flight[]): Promise<Flig
       sessionCount: n,
       /** Published or retired with sessions: its pours are fixed; a change needs a new version. */
       locked: flight.status !== 'draft' && n > 0,
-      ...computeWith(venue, ctx, specs.filter(s => s.flightId === flight.id)),
+      ...computeWith(venue, ctx, specs.filter(s => s.flightId === flight.id), room),
     }
   })
 }
 
-export async function flightView(venue: Venue, flight: Flight): Promise<FlightView> {
-  return (await flightViews(venue, [flight]))[0]!
+export async function flightView(venue: Venue, flight: Flight, room?: RoomAir): Promise<FlightView> {
+  return (await flightViews(venue, [flight], room))[0]!
 }
 
 /** Replaces a draft's pours in the caller's transaction. */

@@ -7,7 +7,7 @@ import type { TastingSession } from '../db/schema/sessions'
 import type { Venue } from '../db/schema/venues'
 import { BOOKING_HISTORY_LABELS, BOOKING_STATE_LABELS, type BookingHistoryEvent } from '../../shared/bookings'
 import { formatDay, formatDayTime, formatTime } from '../../shared/dates'
-import type { HostDay, HostHistoryStep, HostParty, HostPartyFound } from '../../shared/types/host'
+import type { HostDay, HostHistoryStep, HostParty, HostPartyFound, SessionRoomReading } from '../../shared/types/host'
 import { countSeats, doorTiles, seatFactOf, type DoorOutcome } from '../../shared/seats'
 
 /** States a host sees on the day's list: who is coming, who came, who did not. */
@@ -23,13 +23,13 @@ const onList = (b: Booking, now: Date) => (ON_THE_LIST as readonly string[]).inc
  * The check-in routes are for the session's own host (or a manager): another host or any guest
  * gets 403. Returns the user and the session (locked when `tx` is given).
  */
-export async function requireSessionHost(event: H3Event, sessionId: number) {
+export async function requireSessionHost(event: H3Event, sessionId: number, action = 'check guests in') {
   const user = await requireRole(event, 'host', 'manager')
   const venue = await getVenue()
   const [session] = await useDb().select().from(tables.tastingSessions).where(and(eq(tables.tastingSessions.id, sessionId), eq(tables.tastingSessions.venueId, venue.id)))
   if (!session) notFound('No such session.')
   if (!mayAct(user, session)) {
-    throw createError({ status: 403, statusText: 'Not your session', message: 'Only the session\'s host or a manager can check guests in.' })
+    throw createError({ status: 403, statusText: 'Not your session', message: `Only the session's host or a manager can ${action}.` })
   }
   if (session.status === 'cancelled') conflict('This session is cancelled.')
   return { user, venue, session }
@@ -79,7 +79,30 @@ function partyView(b: Booking, c: CheckIn | null, history: HostHistoryStep[], se
   }
 }
 
-/** The day's sessions in the venue's zone with their parties, check-ins, histories and counts, in four queries. */
+/** Names of these users (who read a session's room), in one query. */
+async function userNames(ids: number[]): Promise<Map<number, string>> {
+  if (!ids.length) return new Map()
+  const rows = await useDb().select({ id: tables.users.id, name: tables.users.name }).from(tables.users).where(inArray(tables.users.id, [...new Set(ids)]))
+  return new Map(rows.map(r => [r.id, r.name]))
+}
+
+/** The host's reading of the session's room, or null until one is taken. */
+function roomReadingView(s: TastingSession, readByName: string | null): SessionRoomReading | null {
+  if (s.roomHumidityPct === null || s.roomAirTempC === null || !s.roomReadAt) return null
+  return { sessionId: s.id, relativeHumidityPct: s.roomHumidityPct, airTempC: s.roomAirTempC, readAt: s.roomReadAt.toISOString(), readByName }
+}
+
+/** The session starts on `now`'s calendar day in the venue's zone. */
+function isSessionDay(session: Pick<TastingSession, 'startsAt'>, venue: Venue, now = new Date()): boolean {
+  return DateTime.fromJSDate(session.startsAt, { zone: venue.timeZone }).hasSame(DateTime.fromJSDate(now, { zone: venue.timeZone }), 'day')
+}
+
+/** A room is read on the session's own day: a reading from another day says nothing about its air. */
+export function assertRoomReadingDay(session: TastingSession, venue: Venue, now = new Date()) {
+  if (!isSessionDay(session, venue, now)) conflict(`Read the room on the day of the session (${formatDay(session.startsAt, venue, now)}).`)
+}
+
+/** The day's sessions in the venue's zone with their parties, check-ins, histories and counts, in five queries. */
 export async function hostDay(venue: Venue, user: CurrentUser, date: string, now = new Date()): Promise<HostDay> {
   const day = DateTime.fromISO(date, { zone: venue.timeZone }).startOf('day')
   const db = useDb()
@@ -97,6 +120,7 @@ export async function hostDay(venue: Venue, user: CurrentUser, date: string, now
         .orderBy(asc(tables.bookings.contactName))).filter(p => onList(p.b, now))
     : []
   const histories = await historyOf(parties.map(p => p.b.id))
+  const readers = await userNames(sessions.flatMap(r => (r.s.roomReadBy ? [r.s.roomReadBy] : [])))
   return {
     date: day.toISODate()!,
     timeZone: venue.timeZone,
@@ -118,6 +142,8 @@ export async function hostDay(venue: Venue, user: CurrentUser, date: string, now
         ended: now >= ends,
         status: s.status,
         canAct: mayAct(user, s),
+        room: roomReadingView(s, readers.get(s.roomReadBy ?? 0) ?? null),
+        canReadRoom: mayAct(user, s) && s.status !== 'cancelled' && isSessionDay(s, venue, now),
         // Seats and tiles by the shared rule (shared/seats.ts); the guests booked are summed from the parties themselves.
         counts: {
           seats: s.seats,

@@ -1,4 +1,4 @@
-import { computeFilm, ethanolGrams, type FilmResult } from '../../shared/science'
+import { computeFilm, ethanolGrams, type DrinkKind, type FilmResult, type RoomAir } from '../../shared/science'
 import type { Venue } from '../db/schema/venues'
 
 export interface PourNumbers {
@@ -8,6 +8,8 @@ export interface PourNumbers {
   volumeMl: number
   /** Glass wall angle from horizontal, degrees; the model's default glass when absent. */
   wallAngleDeg?: number
+  /** What the glass holds, as the model sees it (`drinkKindOf` of the product's kind). */
+  kind: DrinkKind
 }
 
 export interface PourFacts {
@@ -18,26 +20,28 @@ export interface PourFacts {
 }
 
 /**
- * Everything the glass model says about one pour, under the venue's standard-drink definition.
- * Derived on every read from the current numbers, never stored, so it cannot go stale.
+ * Everything the glass model says about one pour in this room's air, under the venue's
+ * standard-drink definition. Derived on every read from the current numbers, never stored, so it
+ * cannot go stale.
  */
-export function pourFacts(p: PourNumbers, venue: Pick<Venue, 'standardDrinkGrams'>): PourFacts {
-  const film = filmFor(p.abvPctVol, p.servingTempC, p.residualSugarGL, p.wallAngleDeg)
+export function pourFacts(p: PourNumbers, venue: Pick<Venue, 'standardDrinkGrams'>, room: RoomAir): PourFacts {
+  const film = filmFor(p, room)
   const grams = ethanolGrams(p.volumeMl, p.abvPctVol)
   return { ethanolGrams: grams, standardDrinks: grams / venue.standardDrinkGrams, filmActivityIndex: film.filmActivityIndex, film }
 }
 
 /**
- * computeFilm memoised by its inputs (a pure function, so a cached result can never go stale).
- * Bounded: the oldest entries go first past FILM_CACHE_MAX.
+ * computeFilm memoised by its inputs, every one of them in the key (a pure function, so a cached
+ * result can never go stale). Bounded: the oldest entries go first past FILM_CACHE_MAX.
  */
 const FILM_CACHE_MAX = 20_000
 const filmCache = new Map<string, FilmResult>()
-function filmFor(abvPctVol: number, tempC: number, sugarGL: number, wallAngleDeg?: number): FilmResult {
-  const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}`
+function filmFor(p: PourNumbers, room: RoomAir): FilmResult {
+  const { abvPctVol, servingTempC: tempC, residualSugarGL: sugarGL, wallAngleDeg, kind } = p
+  const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}|${kind}|${room.relativeHumidityPct}|${room.airTempC}`
   let film = filmCache.get(key)
   if (!film) {
-    film = computeFilm({ abvPctVol, tempC, sugarGL, wallAngleDeg })
+    film = computeFilm({ abvPctVol, tempC, sugarGL, wallAngleDeg, kind, room: { relativeHumidityPct: room.relativeHumidityPct, airTempC: room.airTempC } })
     if (filmCache.size >= FILM_CACHE_MAX) filmCache.delete(filmCache.keys().next().value!)
     filmCache.set(key, film)
   }

@@ -61,9 +61,8 @@ export async function readBodyAs<S extends z.ZodType>(event: H3Event, schema: S)
 /** Query values come once each: `?copies=2&copies=3` (an array) is refused, not coerced. */
 export function readQueryAs<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
   const query = getQuery(event)
-  for (const [key, value] of Object.entries(query)) {
-    if (Array.isArray(value)) invalidFields({ [key]: `Give ${key} once.` })
-  }
+  const repeated = Object.entries(query).filter(([, value]) => Array.isArray(value))
+  if (repeated.length) invalidFields(Object.fromEntries(repeated.map(([key]) => [key, `Give ${key} once; it came ${(query[key] as unknown[]).length} times.`])))
   refuseForbiddenText(query)
   return parseWith(schema, query)
 }

@@ -1,6 +1,7 @@
 import { WEEKDAYS, type OpeningHours, type OpeningSpan, type Weekday } from '../venue'
 import { VENUE_LOCALE_CODES, canonicalTimeZone, isKnownCurrency } from '../regions'
 import { z } from './zod'
+import { airTempInRange, airTempMessage, humidityField, toTenth } from './room'
 
 /** Standard-drink definitions in grams of ethanol: NIAAA (US), NHS unit (UK), Australian guidelines. */
 export const STANDARD_DRINK_GRAMS = { us: 14, uk: 8, au: 10 } as const
@@ -105,7 +106,18 @@ export const venueSchema = z.object({
   cancellationCutoffHours: z.number({ error: 'Enter hours.' }).int({ error: 'Use whole hours.' }).min(0, { error: 'Use 0 to 720 hours.' }).max(720, { error: 'Use 0 to 720 hours.' }),
   /** The venue's own lines, after the fixed block the product always prints (shared/cautions.ts); may be empty. */
   cautions: z.string({ error: 'Enter your own cautions, one per line, or leave them empty.' }).trim().max(4000, { error: 'Use at most 4000 characters.' }),
-}).transform((v, ctx) => {
+  /** The room's usual air (left out: unchanged); the air in °C, its range told in the venue's unit below. */
+  roomHumidityPct: humidityField.optional(),
+  roomAirTempC: z.number({ error: 'Enter the room\'s usual air temperature.' }).optional(),
+}).superRefine((v, ctx) => {
+  // Checked even when other fields failed, so every bad field is named at once; the unit is the one
+  // this same body sets (°C when that field is itself bad).
+  const { roomAirTempC: t, temperatureUnit } = (v && typeof v === 'object' ? v : {}) as Record<string, unknown>
+  if (typeof t === 'number' && Number.isFinite(t) && !airTempInRange(t)) {
+    ctx.addIssue({ code: 'custom', path: ['roomAirTempC'], message: airTempMessage(temperatureUnit === 'f' ? 'f' : 'c') })
+  }
+}, { when: () => true }).transform((parsed, ctx) => {
+  const v = parsed.roomAirTempC === undefined ? parsed : { ...parsed, roomAirTempC: toTenth(parsed.roomAirTempC) }
   if (v.standardDrinkKind !== 'custom') return { ...v, standardDrinkGrams: STANDARD_DRINK_GRAMS[v.standardDrinkKind] }
   const grams = customGrams.safeParse(v.standardDrinkGrams)
   if (!grams.success) {

@@ -24,6 +24,19 @@ export interface CardPour {
   pourUrl: string
 }
 
+/** The room's air a card's predictions assume, and the line the card prints about it. */
+export interface CardRoom {
+  relativeHumidityPct: number
+  /** °C to a tenth. */
+  airTempC: number
+  /** 'session': the host read the room for this session; 'venue': the venue's usual reading. */
+  source: 'session' | 'venue'
+  /** When the host read it (UTC, ISO 8601); null for the venue's usual reading. */
+  readAt: string | null
+  /** "Room: 70 °F, 62 % RH (read at 1:40 PM)", in the venue's temperature unit and clock. */
+  text: string
+}
+
 /**
  * A flight card: the one description the PDF and the print page both render (shared/cards.ts
  * builds it; GET /api/cards/flights/[id], and per seated guest in a session's cards).
@@ -37,6 +50,8 @@ export interface FlightCard {
   sessionLabel: string | null
   pours: CardPour[]
   totals: { ethanolGrams: number, standardDrinks: number, volumeText: string, definition: string }
+  /** The room's air every pour's figures on this card were computed for. */
+  room: CardRoom
   why: string
   quality: string
   cautions: string[]

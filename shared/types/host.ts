@@ -72,8 +72,24 @@ export interface HostSession {
   ended: boolean
   status: SessionStatus
   canAct: boolean
+  /** The host's reading of the room for this session; null until one is taken (cards then assume the venue's usual air). */
+  room: SessionRoomReading | null
+  /** The caller may record a reading now: the session's host or a manager, on the session's day, not cancelled. */
+  canReadRoom: boolean
   counts: HostSessionCounts
   parties: HostParty[]
+}
+
+/** A host's reading of a session's room (PUT /api/sessions/[id]/room-reading, and on the host's day). */
+export interface SessionRoomReading {
+  sessionId: number
+  relativeHumidityPct: number
+  /** °C to a tenth; pages show it in the venue's unit. */
+  airTempC: number
+  /** When it was read (UTC, ISO 8601). */
+  readAt: string
+  /** Who read it; null if that account is gone. */
+  readByName: string | null
 }
 
 /** The host's day (GET /api/days/[date]): a venue-local date's sessions with every party. */

@@ -24,4 +24,8 @@ export interface PublicVenue {
   email: string
   website: string
   openingHours: OpeningHours | null
+  /** The room's usual relative humidity, %: the glass model's air unless a host read the room for a session. */
+  roomHumidityPct: number
+  /** The room's usual air temperature, °C to a tenth (shown in `temperatureUnit`). */
+  roomAirTempC: number
 }

@@ -113,6 +113,8 @@ const ROUTES: Row[] = [
   // Typed in lower case with a space and a dash, as a host might; the matrix session has no host, so only a manager finds it.
   { route: 'GET /api/bookings/by-reference/[reference]', path: f => `/api/bookings/by-reference/${encodeURIComponent(`${f.paidReference.slice(0, 5).toLowerCase()} -${f.paidReference.slice(5)}`)}`, expect: only({ manager: 200 }) },
   { route: 'POST /api/sessions/[id]/walk-ins', path: f => `/api/sessions/${f.session}/walk-ins`, body: () => ({ contactName: 'Matrix Walk-in', partySize: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
+  // The room's air for a session: the demo host does not run the matrix session (403); a manager passes the guard and meets the day rule (409).
+  { route: 'PUT /api/sessions/[id]/room-reading', path: f => `/api/sessions/${f.session}/room-reading`, body: () => ({ relativeHumidityPct: 55, airTempC: 21 }), expect: only({ manager: 409 }) },
   { route: 'GET /api/sessions/[id]/cards', path: f => `/api/sessions/${f.session}/cards`, expect: only({ manager: 200 }) },
   // The matrix session has no paid party of its own, so the job is refused as empty (409).
   { route: 'POST /api/sessions/[id]/card-jobs', path: f => `/api/sessions/${f.session}/card-jobs`, body: () => ({ paper: 'a5', names: false }), expect: only({ manager: 409 }) },

@@ -28,20 +28,66 @@ describe('GET /api/science/film', () => {
   })
 
   it.each([
-    ['abv=-1&tempC=20', 'abv', /ABV must be a number from 0 to 100/],
+    ['abv=-1&tempC=20', 'abv', /ABV \(abv\) must be a number from 0 to 100/],
     ['abv=101&tempC=20', 'abv', /0 to 100/],
-    ['abv=abc&tempC=20', 'abv', /ABV must be a number/],
-    ['abv=12&tempC=80', 'tempC', /Temperature must be a number from 0 to 40/],
-    ['abv=12', 'tempC', /Temperature is required/],
-    ['tempC=20', 'abv', /ABV is required/],
-    ['abv=12&tempC=20&sugarGL=-5', 'sugarGL', /Residual sugar must be a number from 0 to 400/],
-    ['abv=12&tempC=20&wallAngleDeg=5', 'wallAngleDeg', /Wall angle/],
-    ['abv=NaN&tempC=20', 'abv', /ABV must be a number/],
-    ['abv=Infinity&tempC=20', 'abv', /ABV must be a number/],
-  ])('answers 400 to %s', async (query, field, message) => {
+    ['abv=abc&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    ['abv=12&tempC=80', 'tempC', /Temperature \(tempC\) must be a number from 0 to 40/],
+    ['abv=12', 'tempC', /Temperature \(tempC\) is required/],
+    ['tempC=20', 'abv', /ABV \(abv\) is required/],
+    ['abv=12&tempC=20&sugarGL=-5', 'sugarGL', /Residual sugar \(sugarGL\) must be a number from 0 to 400/],
+    ['abv=12&tempC=20&wallAngleDeg=5', 'wallAngleDeg', /Wall angle \(wallAngleDeg\)/],
+    ['abv=NaN&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    ['abv=Infinity&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    // Number() reads every one of these as a number; none is a plain decimal.
+    ['abv=0x10&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    ['abv=1e1&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    ['abv=&tempC=20', 'abv', /ABV \(abv\) is blank/],
+    ['abv=%2012&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/], // " 12"
+    ['abv=1%202&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/], // "1 2"
+    ['abv=12abc&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    ['abv=12.&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    ['abv=-Infinity&tempC=20', 'abv', /ABV \(abv\) must be a plain decimal/],
+    ['abv=12&tempC=0b101', 'tempC', /Temperature \(tempC\) must be a plain decimal/],
+    ['abv=12&tempC=20&sugarGL=', 'sugarGL', /Residual sugar \(sugarGL\) is blank/],
+    ['abv=12&abv=13&tempC=20', 'abv', /Give abv once/],
+    ['abv=12&tempC=20&rh=101', 'rh', /Relative humidity \(rh\) must be a number from 0 to 100 %/],
+    ['abv=12&tempC=20&rh=5e1', 'rh', /Relative humidity \(rh\) must be a plain decimal/],
+    ['abv=12&tempC=20&rh=', 'rh', /Relative humidity \(rh\) is blank/],
+    ['abv=12&tempC=20&airTempC=41', 'airTempC', /Air temperature \(airTempC\) must be a number from 0 to 40 °C/],
+    ['abv=12&tempC=20&airTempC=Infinity', 'airTempC', /Air temperature \(airTempC\) must be a plain decimal/],
+    ['abv=12&tempC=20&airTempC=20&airTempC=21', 'airTempC', /Give airTempC once/],
+    ['abv=12&tempC=20&kind=wine', 'kind', /Kind \(kind\) must be one of still, sparkling/],
+    ['abv=12&tempC=20&kind=', 'kind', /Kind \(kind\) must be one of/],
+    ['abv=12&tempC=20&humidity=50', 'humidity', /humidity is not a parameter of this route; it reads abv, tempC, sugarGL, wallAngleDeg, rh, airTempC, kind/],
+    ['abv=12&tempC=20&abv[]=3', 'abv[]', /abv\[\] is not a parameter of this route/],
+    ['abv=12&tempC=20&points=5', 'points', /points is not a parameter of this route/],
+  ])('answers 400 to %s, naming the field', async (query, field, message) => {
     const res = await anon.get(`/api/science/film?${query}`)
     expect(res.status).toBe(400)
     expect(res.body.data.fields[field]).toMatch(message)
+  })
+
+  it('names every bad and every unknown key in one answer', async () => {
+    const res = await anon.get('/api/science/film?abv=0x10&tempC=20&airTemp=18&rh=200')
+    expect(res.status).toBe(400)
+    expect(Object.keys(res.body.data.fields).sort()).toEqual(['abv', 'airTemp', 'rh'])
+    expect(res.body.message).toMatch(/airTemp is not a parameter/)
+  })
+
+  it('takes the room\'s air and the kind of drink: inputs.room and inputs.kind are what was sent', async () => {
+    const res = await anon.get('/api/science/film?abv=12&tempC=14&rh=35&airTempC=18.5&kind=sparkling')
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    expect(res.body.inputs.room).toEqual({ relativeHumidityPct: 35, airTempC: 18.5 })
+    expect(res.body.inputs.kind).toBe('sparkling')
+    const other = await anon.get('/api/science/film?abv=12&tempC=14&rh=80&airTempC=30&kind=low_alcohol')
+    expect(other.body.inputs.room).toEqual({ relativeHumidityPct: 80, airTempC: 30 })
+    expect(other.body.inputs.kind).toBe('low_alcohol')
+  })
+
+  it('without rh and airTempC assumes the model\'s default room (50 % RH at 21 °C)', async () => {
+    const { body } = await anon.get('/api/science/film?abv=12&tempC=14')
+    expect(body.inputs.room).toEqual({ relativeHumidityPct: 50, airTempC: 21 }) // DEFAULT_ROOM_AIR (shared/science/glassModel.ts)
+    expect(body.inputs.kind).toBe('still')
   })
 })
 
@@ -67,6 +113,31 @@ describe('GET /api/science/curve', () => {
     expect(res.status).toBe(400)
     expect(res.body.data.fields.tempC).toMatch(/required/)
   })
+
+  it.each([2, 3, 57, 401])('honours points=%i: that many points, from ABV 0 to 100', async (points) => {
+    const res = await anon.get(`/api/science/curve?tempC=20&points=${points}`)
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    expect(res.body).toHaveLength(points)
+    expect(res.body[0].abvPctVol).toBe(0)
+    expect(res.body.at(-1).abvPctVol).toBe(100)
+  })
+
+  it.each([
+    ['points=1', 'points', /Points \(points\) must be a whole number from 2 to 401/],
+    ['points=402', 'points', /Points \(points\) must be a whole number from 2 to 401/],
+    ['points=2001', 'points', /from 2 to 401/],
+    ['points=2.5', 'points', /Points \(points\) must be a whole number/],
+    ['points=', 'points', /Points \(points\) is blank/],
+    ['points=1e2', 'points', /Points \(points\) must be a plain decimal/],
+    ['points=50&points=60', 'points', /Give points once/],
+    ['tempC=0x14', 'tempC', /Temperature \(tempC\) must be a plain decimal/],
+    ['rh=50', 'rh', /rh is not a parameter of this route; it reads tempC, sugarGL, points/],
+    ['kind=beer', 'kind', /kind is not a parameter of this route/],
+  ])('answers 400 to %s, naming the field', async (query, field, message) => {
+    const res = await anon.get(`/api/science/curve?${query.startsWith('tempC') ? query : `tempC=20&${query}`}`)
+    expect(res.status).toBe(400)
+    expect(res.body.data.fields[field]).toMatch(message)
+  })
 })
 
 describe('GET /api/science/products', () => {
@@ -78,5 +149,14 @@ describe('GET /api/science/products', () => {
     expect(gin.abvPctVol).toBe(43)
     expect(gin.costPerBottleMinor).toBeUndefined()
     expect(gin.description.join(' ')).toMatch(/quality/)
+  })
+
+  it.each([
+    ['rh=50', 'rh'],
+    ['abv=12', 'abv'],
+  ])('reads no query: %s is refused, naming the key', async (query, key) => {
+    const res = await anon.get(`/api/science/products?${query}`)
+    expect(res.status).toBe(400)
+    expect(res.body.data.fields[key]).toMatch(new RegExp(`${key} is not a parameter of this route; it reads none`))
   })
 })

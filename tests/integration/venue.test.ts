@@ -54,6 +54,8 @@ const BAD: [string, string, unknown, string, RegExp][] = [
   ['five openings in a day', 'openingHours', { sun: ['08', '10', '12', '14', '16'].map(h => ({ opens: `${h}:00`, closes: `${h}:30` })) }, 'openingHours.sun', /at most 4/],
   ['a day that is not a list', 'openingHours', { mon: '12:00-18:00' }, 'openingHours.mon', /as a list/],
   ['hours that are not per day', 'openingHours', 'always open', 'openingHours', /per day of the week/],
+  ['a room humidity over 100 %', 'roomHumidityPct', 130, 'roomHumidityPct', /whole number from 0 to 100 %/],
+  ['a room air temperature past the model\'s range, in the demo\'s °F', 'roomAirTempC', 55, 'roomAirTempC', /between 32 and 104 °F/],
 ]
 
 describe('venue settings: each bad field', () => {

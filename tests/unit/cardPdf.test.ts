@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs'
 import { resolve } from 'node:path'
 import { describe, expect, it } from 'vitest'
-import { computeFilm, ethanolGrams, flightTotals } from '../../shared/science'
-import { buildFlightCard } from '../../shared/cards'
+import { DEFAULT_ROOM_AIR, computeFilm, ethanolGrams, flightTotals } from '../../shared/science'
+import { buildFlightCard, type CardRoomInput } from '../../shared/cards'
 import { renderNote } from '../../shared/markdown'
 import { renderCardsPdf } from '../../server/cards/cardPdf'
 import { compactLists } from '../../server/cards/pdfText'
@@ -18,14 +18,14 @@ const INVENTED = [
   ['Unit Red', 'still_wine', 14, 2, 16, 60], ['Unit Fortified', 'fortified', 19.5, 100, 16, 45], ['Unit Gin', 'spirit', 43, 0, 18, 15],
 ] as const
 
-function card(note: string, intro = 'Six pours along the **shore**: take _your_ time.') {
+function card(note: string, intro = 'Six pours along the **shore**: take _your_ time.', room: CardRoomInput = { air: DEFAULT_ROOM_AIR, source: 'venue', readAt: null }) {
   const pours = INVENTED.map(([name, kind, abv, sugar, temp, ml], i) => {
-    const film = computeFilm({ abvPctVol: abv, tempC: temp, sugarGL: sugar, wallAngleDeg: glass.wallAngleDeg })
+    const film = computeFilm({ abvPctVol: abv, tempC: temp, sugarGL: sugar, wallAngleDeg: glass.wallAngleDeg, room: room.air })
     const g = ethanolGrams(ml, abv)
     return { position: i + 1, product: { name, kind, producer: 'Unit Cellars', vintageOrBatch: '2025', allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film, tastingNote: renderNote(note) }
   })
   const venue = { name: 'Unit Tasting Room', address: '1 Unit Lane', cautions: 'Please do not drive after your tasting.\nYou must be of legal drinking age.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC' }
-  return buildFlightCard({ venue, flight: { id: 1, name: 'Unit flight', version: 1, summary: 'Six pours', pours, totals: flightTotals(pours, 14), intro: renderNote(intro) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'A Guest' })
+  return buildFlightCard({ venue, flight: { id: 1, name: 'Unit flight', version: 1, summary: 'Six pours', pours, totals: flightTotals(pours, 14), intro: renderNote(intro) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'A Guest', room })
 }
 
 describe('the card PDF with notes', () => {
@@ -46,6 +46,16 @@ describe('the card PDF with notes', () => {
     expect(pdf.pages).toBe(2)
     const flat = pdf.text.replace(/\s+/g, ' ')
     expect(flat.match(/point 12 with bold 12 words/g)).toHaveLength(6)
+  }, 30_000)
+
+  it('prints the room reading the card assumed, on the print page\'s data and in the PDF', async () => {
+    const reading = card('**Pear**.', undefined, { air: { relativeHumidityPct: 57, airTempC: 23.4 }, source: 'session', readAt: '2026-10-03T13:40:00Z' })
+    expect(reading.room).toEqual({ relativeHumidityPct: 57, airTempC: 23.4, source: 'session', readAt: '2026-10-03T13:40:00.000Z', text: 'Room: 23 °C, 57 % RH — read for this session' })
+    const usual = card('**Pear**.')
+    expect(usual.room.text).toBe(`Room: ${DEFAULT_ROOM_AIR.airTempC} °C, ${DEFAULT_ROOM_AIR.relativeHumidityPct} % RH — the room's usual air`)
+    const text = inspectPdf(await renderCardsPdf([reading, usual], { paper: 'a5', fonts })).text.replace(/\s+/g, ' ')
+    expect(text).toContain('Room: 23 °C, 57 % RH — read for this session')
+    expect(text).toContain(`Room: ${DEFAULT_ROOM_AIR.airTempC} °C, ${DEFAULT_ROOM_AIR.relativeHumidityPct} % RH`)
   }, 30_000)
 
   it('runs a list on when asked: markers kept, items on shared lines', () => {

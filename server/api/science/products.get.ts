@@ -1,15 +1,20 @@
 import { computeFilm, describePour, DEFAULT_WALL_ANGLE_DEG } from '../../../shared/science'
+import { drinkKindOf } from '../../../shared/pours'
+import { productsQuerySchema } from '../../../shared/schemas/science'
 import type { ProductOnCurve } from '../../../shared/types/science'
 
 /**
- * The venue's active products as the glass model sees them at their serving temperature, for the
- * public page that explains the effect. Only what a label or a menu shows is public.
+ * The venue's active products as the glass model sees them at their serving temperature, in the
+ * venue's usual room air, for the public page that explains the effect. Only what a label or a
+ * menu shows is public. It reads no query; any key is refused.
  */
-export default defineEventHandler(async (): Promise<ProductOnCurve[]> => {
+export default defineEventHandler(async (event): Promise<ProductOnCurve[]> => {
+  await readQueryAs(event, productsQuerySchema)
   const venue = await getVenue()
+  const room = venueRoom(venue).air
   const products = (await loadProducts(venue.id)).filter(p => p.status === 'active')
   return products.map((p) => {
-    const film = computeFilm({ abvPctVol: p.current.abvPctVol, tempC: p.servingTempC, sugarGL: p.current.residualSugarGL, wallAngleDeg: DEFAULT_WALL_ANGLE_DEG })
+    const film = computeFilm({ abvPctVol: p.current.abvPctVol, tempC: p.servingTempC, sugarGL: p.current.residualSugarGL, wallAngleDeg: DEFAULT_WALL_ANGLE_DEG, room, kind: drinkKindOf(p.kind) })
     return {
       id: p.id,
       name: p.name,

@@ -1,4 +1,4 @@
-import { mysqlTable, int, varchar, mysqlEnum, char, index, uniqueIndex } from 'drizzle-orm/mysql-core'
+import { mysqlTable, int, varchar, mysqlEnum, char, decimal, index, uniqueIndex } from 'drizzle-orm/mysql-core'
 import { timestamps, utcDatetime } from './common'
 import { venues } from './venues'
 import { flights } from './flights'
@@ -22,6 +22,14 @@ export const tastingSessions = mysqlTable('tasting_sessions', {
   status: mysqlEnum('status', SESSION_STATUSES).notNull().default('open'),
   /** Sessions created together as a recurring series share this id. */
   seriesId: varchar('series_id', { length: 36 }),
+  /**
+   * The host's reading of the room for this session (relative humidity %, air °C to a tenth), when
+   * and by whom: cards printed after it assume this air; until then the venue's usual reading.
+   */
+  roomHumidityPct: int('room_humidity_pct'),
+  roomAirTempC: decimal('room_air_temp_c', { precision: 4, scale: 1, mode: 'number' }),
+  roomReadAt: utcDatetime('room_read_at'),
+  roomReadBy: int('room_read_by').references(() => users.id, { onDelete: 'set null' }),
   ...timestamps,
 }, t => [
   index('sessions_venue_start_idx').on(t.venueId, t.startsAt),

@@ -1,4 +1,4 @@
-import { mysqlTable, int, varchar, char, text, mysqlEnum, double, json } from 'drizzle-orm/mysql-core'
+import { mysqlTable, int, varchar, char, text, mysqlEnum, double, json, decimal } from 'drizzle-orm/mysql-core'
 import type { OpeningHours } from '../../../shared/venue'
 import { timestamps } from './common'
 
@@ -33,6 +33,13 @@ export const venues = mysqlTable('venues', {
   website: varchar('website', { length: 300 }).notNull().default(''),
   /** Opening hours per weekday in local time (shared/venue.ts); null until the manager sets them. */
   openingHours: json('opening_hours').$type<OpeningHours>(),
+  /**
+   * The room's usual air, as a hygrometer on the wall reads it: what the glass model assumes for
+   * every pour unless a host has read the room for the session (tasting_sessions.room_*).
+   */
+  roomHumidityPct: int('room_humidity_pct').notNull().default(50),
+  /** °C to a tenth; pages show it in the venue's temperature unit. */
+  roomAirTempC: decimal('room_air_temp_c', { precision: 4, scale: 1, mode: 'number' }).notNull().default(21),
   ...timestamps,
 })
 

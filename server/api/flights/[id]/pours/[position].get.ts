@@ -15,7 +15,7 @@ export default defineEventHandler(async (event): Promise<PourPage> => {
   const view = await flightView(venue, await loadFlight(venue, id, { publishedOnly: true }))
   const pour = view.pours.find(p => p.position === position)
   if (!pour) notFound('This flight has no such pour.')
-  const card = buildFlightCard({ venue, flight: { ...view, pours: [pour] }, publicUrl: appLink(`/pour/${id}`) })
+  const card = buildFlightCard({ venue, flight: { ...view, pours: [pour] }, publicUrl: appLink(`/pour/${id}`), room: venueRoom(venue) })
   return {
     venue: { name: venue.name, temperatureUnit: venue.temperatureUnit },
     flight: { id: view.id, name: view.name, pourCount: view.pours.length },
