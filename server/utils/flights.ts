@@ -35,7 +35,7 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[], room: Ro
   const pours = specs.map((s, i) => {
     const p = ctx.products.get(s.productId)!
     const g = ctx.glasses.get(s.glassId)!
-    const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: s.servingTempC, volumeMl: s.volumeMl, wallAngleDeg: g.wallAngleDeg, kind: drinkKindOf(p.kind) }, venue, room)
+    const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: s.servingTempC, volumeMl: s.volumeMl, wallAngleDeg: g.wallAngleDeg, bowlDiameterMm: g.bowlDiameterMm, kind: drinkKindOf(p.kind) }, venue, room)
     return {
       position: i + 1,
       productId: p.id,

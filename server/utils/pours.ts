@@ -8,6 +8,8 @@ export interface PourNumbers {
   volumeMl: number
   /** Glass wall angle from horizontal, degrees; the model's default glass when absent. */
   wallAngleDeg?: number
+  /** Inside diameter of the glass's bowl, mm (how many tears fit around); the model's default when absent. */
+  bowlDiameterMm?: number
   /** What the glass holds, as the model sees it (`drinkKindOf` of the product's kind). */
   kind: DrinkKind
 }
@@ -37,11 +39,13 @@ export function pourFacts(p: PourNumbers, venue: Pick<Venue, 'standardDrinkGrams
 const FILM_CACHE_MAX = 20_000
 const filmCache = new Map<string, FilmResult>()
 function filmFor(p: PourNumbers, room: RoomAir): FilmResult {
-  const { abvPctVol, servingTempC: tempC, residualSugarGL: sugarGL, wallAngleDeg, kind } = p
-  const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}|${kind}|${room.relativeHumidityPct}|${room.airTempC}`
+  const { abvPctVol, servingTempC: tempC, residualSugarGL: sugarGL, wallAngleDeg, bowlDiameterMm, kind } = p
+  // The pour's volume sets how fast it loses its alcohol; clamp to the model's range (5–500 mL).
+  const pourVolumeMl = Math.min(500, Math.max(5, p.volumeMl))
+  const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}|${bowlDiameterMm ?? ''}|${pourVolumeMl}|${kind}|${room.relativeHumidityPct}|${room.airTempC}`
   let film = filmCache.get(key)
   if (!film) {
-    film = computeFilm({ abvPctVol, tempC, sugarGL, wallAngleDeg, kind, room: { relativeHumidityPct: room.relativeHumidityPct, airTempC: room.airTempC } })
+    film = computeFilm({ abvPctVol, tempC, sugarGL, wallAngleDeg, bowlDiameterMm: bowlDiameterMm === undefined ? undefined : Math.min(150, Math.max(30, bowlDiameterMm)), pourVolumeMl, kind, room: { relativeHumidityPct: room.relativeHumidityPct, airTempC: room.airTempC } })
     if (filmCache.size >= FILM_CACHE_MAX) filmCache.delete(filmCache.keys().next().value!)
     filmCache.set(key, film)
   }
