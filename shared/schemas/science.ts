@@ -45,6 +45,9 @@ const abv = queryNumber({ key: 'abv', label: 'ABV', unit: '% vol', range: ABV_RA
 const tempC = queryNumber({ key: 'tempC', label: 'Temperature', unit: '°C', range: TEMP_RANGE_C })
 const sugarGL = queryNumber({ key: 'sugarGL', label: 'Residual sugar', unit: 'g/L', range: SUGAR_RANGE_G_L }).default(0)
 
+const rh = queryNumber({ key: 'rh', label: 'Relative humidity', unit: '%', range: HUMIDITY_RANGE_PCT }).default(DEFAULT_ROOM_AIR.relativeHumidityPct)
+const airTempC = queryNumber({ key: 'airTempC', label: 'Air temperature', unit: '°C', range: AIR_TEMP_RANGE_C }).default(DEFAULT_ROOM_AIR.airTempC)
+
 /** Number of curve points over 0–100 % vol (the model takes more; a chart needs no more than this). */
 const CURVE_POINTS_RANGE = { min: 2, max: 401 } as const
 const CURVE_POINTS_DEFAULT = 201
@@ -58,15 +61,20 @@ export const filmQuerySchema = strictQuery({
   tempC,
   sugarGL,
   wallAngleDeg: queryNumber({ key: 'wallAngleDeg', label: 'Wall angle', unit: '° from horizontal', range: WALL_ANGLE_RANGE_DEG }).default(DEFAULT_WALL_ANGLE_DEG),
-  rh: queryNumber({ key: 'rh', label: 'Relative humidity', unit: '%', range: HUMIDITY_RANGE_PCT }).default(DEFAULT_ROOM_AIR.relativeHumidityPct),
-  airTempC: queryNumber({ key: 'airTempC', label: 'Air temperature', unit: '°C', range: AIR_TEMP_RANGE_C }).default(DEFAULT_ROOM_AIR.airTempC),
+  rh,
+  airTempC,
   kind: z.enum(DRINK_KINDS, { error: `Kind (kind) must be one of ${DRINK_KINDS.join(', ')}.` }).optional(),
 })
 
-/** GET /api/science/curve: tempC (required); sugarGL and points (whole, 2–401, default 201) optional. */
+/**
+ * GET /api/science/curve: tempC (required); sugarGL, rh, airTempC (the room, as for the film) and
+ * points (whole, 2–401, default 201) optional.
+ */
 export const curveQuerySchema = strictQuery({
   tempC,
   sugarGL,
+  rh,
+  airTempC,
   points: queryNumber({ key: 'points', label: 'Points', unit: '', range: CURVE_POINTS_RANGE, integer: true }).default(CURVE_POINTS_DEFAULT),
 })
 

@@ -9,9 +9,9 @@ describe('GET /api/science/film', () => {
     expect(res.status).toBe(200)
     const f = res.body
     expect(f.solventMassFraction).toBeCloseTo(0.09641, 4) // OIML R 22 formula at 20 °C: 12 % vol ↔ 9.641 % mass (evaluated here; docs/science.md §1)
-    expect(f.density_kg_m3).toBeCloseTo(982.35, 1) // OIML R 22 formula at 20 °C (OIML R 22 (1975) formula evaluated here; docs/science.md §1)
+    expect(f.density_kg_m3).toBeCloseTo(982.35, 1) // OIML R 22 formula at 20 °C (evaluated here; docs/science.md §1)
     expect(f.surfaceTensionBulk_mN_m).toBeGreaterThan(45)
-    expect(f.surfaceTensionBulk_mN_m).toBeLessThan(54) // model hydroalcoholic solution, 12 % vol ≈ 49.5 mN/m (secondary source in science-sources §2), ± a few
+    expect(f.surfaceTensionBulk_mN_m).toBeLessThan(54) // 12 % vol model solution ≈ 49.5 mN/m, a secondary source held to memory grade (docs/science.md §2), ± a few
     expect(f.surfaceTensionFilm_mN_m).toBeGreaterThan(f.surfaceTensionBulk_mN_m)
     expect(f.filmActivityIndex).toBeGreaterThan(0)
     expect(f.filmActivityIndex).toBeLessThanOrEqual(10)
@@ -92,15 +92,17 @@ describe('GET /api/science/film', () => {
 })
 
 describe('GET /api/science/curve', () => {
-  it('gives 201 points over 0–100 % vol, 0 at water, about 0 at the azeotrope', async () => {
+  it('gives 201 points over 0–100 % vol, 0 at water, peaking at table-wine strengths', async () => {
     const res = await anon.get('/api/science/curve?tempC=20&sugarGL=0')
     expect(res.status).toBe(200)
     expect(res.body).toHaveLength(201)
     expect(res.body[0].abvPctVol).toBe(0)
     expect(res.body[0].filmActivityIndex).toBe(0)
     expect(res.body[200].abvPctVol).toBe(100)
-    const nearAzeotrope = res.body.find((p: { abvPctVol: number }) => p.abvPctVol >= 96.5) // azeotrope ≈ 95.6 % mass ≈ 97 % vol, Perry's Handbook (science-sources §3)
-    expect(nearAzeotrope.filmActivityIndex).toBeLessThan(0.3)
+    // Near the 1 atm azeotrope (≈ 95.6 % mass ≈ 97 % vol, Perry's Chemical Engineers' Handbook — from memory)
+    // evaporation barely changes the film: the index is well below its table-wine peak (docs/science.md §7)
+    const nearAzeotrope = res.body.find((p: { abvPctVol: number }) => p.abvPctVol >= 96.5)
+    expect(nearAzeotrope.filmActivityIndex).toBeLessThan(0.5 * Math.max(...res.body.map((p: { filmActivityIndex: number }) => p.filmActivityIndex)))
     // The trade's observation: stronger table wines show tears more readily (common practice, no source).
     const at = (abv: number) => res.body.find((p: { abvPctVol: number }) => p.abvPctVol === abv).filmActivityIndex
     expect(at(3)).toBeLessThan(at(6))
@@ -112,6 +114,14 @@ describe('GET /api/science/curve', () => {
     const res = await anon.get('/api/science/curve')
     expect(res.status).toBe(400)
     expect(res.body.data.fields.tempC).toMatch(/required/)
+  })
+
+  it('follows the room: a humid room lifts a strong spirit\'s film, barely a wine\'s', async () => {
+    const dry = (await anon.get('/api/science/curve?tempC=20&points=21&rh=20&airTempC=20')).body
+    const humid = (await anon.get('/api/science/curve?tempC=20&points=21&rh=90&airTempC=20')).body
+    const at = (c: { abvPctVol: number, filmActivityIndex: number }[], abv: number) => c.find(p => p.abvPctVol === abv)!.filmActivityIndex
+    expect(at(humid, 95)).toBeGreaterThan(1.4 * at(dry, 95)) // the film takes water up from humid air (docs/science.md §4)
+    expect(Math.abs(at(humid, 10) - at(dry, 10))).toBeLessThan(0.25 * at(dry, 10))
   })
 
   it.each([2, 3, 57, 401])('honours points=%i: that many points, from ABV 0 to 100', async (points) => {
@@ -131,7 +141,8 @@ describe('GET /api/science/curve', () => {
     ['points=1e2', 'points', /Points \(points\) must be a plain decimal/],
     ['points=50&points=60', 'points', /Give points once/],
     ['tempC=0x14', 'tempC', /Temperature \(tempC\) must be a plain decimal/],
-    ['rh=50', 'rh', /rh is not a parameter of this route; it reads tempC, sugarGL, points/],
+    ['humidity=50', 'humidity', /humidity is not a parameter of this route; it reads tempC, sugarGL, rh, airTempC, points/],
+    ['rh=101', 'rh', /Relative humidity \(rh\) must be a number from 0 to 100 %/],
     ['kind=beer', 'kind', /kind is not a parameter of this route/],
   ])('answers 400 to %s, naming the field', async (query, field, message) => {
     const res = await anon.get(`/api/science/curve?${query.startsWith('tempC') ? query : `tempC=20&${query}`}`)
