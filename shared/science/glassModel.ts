@@ -304,7 +304,7 @@ function climb(p: Prepared, o: { viscosityFactor?: number, humidityPct?: number,
  * Smallest surface-tension rise, mN/m, that moves the film against what else sets the surface:
  * - wine, cider and other fermented drinks carry surface-active solutes (proteins, polyphenols,
  *   polysaccharides) that lower their surface tension a few mN/m below a water–ethanol solution of
- *   the same strength (science-sources: seen, secondary) and, adsorbed, resist being swept along;
+ *   the same strength (docs/science.md §2, a secondary source) and, adsorbed, resist being swept along;
  *   taken as 1 mN/m (estimate, no source);
  * - distilled spirits carry almost none; 0.2 mN/m stands for the uneven evaporation and draughts
  *   around a glass (estimate, no source).
