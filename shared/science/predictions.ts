@@ -165,8 +165,8 @@ export function describePour(result: FilmResult, options: DescribeOptions = {}):
   const tears = `${count} around the glass, each about ${sig2(p.tearWidth_mm ?? p.capillaryLength_mm)}\u00a0mm wide, sliding down at ${fall}`
   if (brief) {
     out.push(p.bandVisible
-      ? `${at}, swirl: within ${onset} a band ${band} tall climbs the glass, then ${count} tears about ${sig2(p.tearWidth_mm ?? p.capillaryLength_mm)}\u00a0mm wide slide down at ${fall}.`
-      : `${at}, swirl: the band stays low, but the swirled film runs down as ${count} legs about ${sig2(p.tearWidth_mm ?? p.capillaryLength_mm)}\u00a0mm wide at ${fall}.`)
+      ? `${at}, swirl: within ${onset} a band ${band} tall climbs the glass, then ${count} tears slide down at ${fall}.`
+      : `${at}, swirl: the band stays low, but the swirled film runs down as ${count} legs at ${fall}.`)
   }
   else out.push(p.bandVisible
     ? `${at}, swirl and watch: within ${onset} a clear band ${band} tall forms above the liquid, gathers into a ridge and falls back as tears — ${tears}.`

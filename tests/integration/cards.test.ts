@@ -57,7 +57,7 @@ describe('card data', () => {
     expect(card.cautions.join(' ')).toMatch(/If you are driving, please do not drink/) // the fixed block (shared/cautions.ts) is on every card
     expect(card.qrUrl).toBe(`${inject('appUrl')}/pour/${flightId}`)
     // The sweet tawny's text explains its slower tears by its sugar.
-    expect(card.pours[4].lookFor.join(' ')).toMatch(/110 g\/L of sugar/)
+    expect(card.pours[4].lookFor.join(' ')).toMatch(/110\sg\/L of sugar/)
   })
 
   it('counts standard drinks under the venue\'s definition: UK units of 8 g', async () => {

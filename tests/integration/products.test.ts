@@ -12,6 +12,12 @@ const as = async (email: string) => {
   return c
 }
 
+/** The glass model as the server runs it for a catalogue pour: the venue's usual room, a still wine, a 60 mL pour. */
+const modelled = async (manager: Client, abvPctVol: number, tempC: number, sugarGL: number) => {
+  const v = (await manager.get('/api/venue')).body as { roomHumidityPct: number, roomAirTempC: number }
+  return computeFilm({ abvPctVol, tempC, sugarGL, kind: 'still', pourVolumeMl: 60, room: { relativeHumidityPct: v.roomHumidityPct, airTempC: v.roomAirTempC } })
+}
+
 const tag = runTag()
 const created: string[] = []
 const newProduct = (code: string, over: Record<string, unknown> = {}) => {
@@ -56,7 +62,7 @@ describe('products', () => {
     expect(p.derived.ethanolGramsPerPour).toBeCloseTo(5.92, 2) // 60 mL of 12.5 % vol: 7.5 mL of ethanol ≈ 5.9 g (OIML R 22 density)
     expect(standardDrinkGrams).toBe(14) // US standard drink: 14 g of ethanol (NIAAA)
     expect(p.derived.standardDrinksPerPour).toBeCloseTo(grams / 14, 6) // 14 g of ethanol per US standard drink (NIAAA)
-    const film = computeFilm({ abvPctVol: 12.5, tempC: 10, sugarGL: 2 })
+    const film = await modelled(manager, 12.5, 10, 2)
     expect(p.derived.filmActivityIndex).toBeCloseTo(film.filmActivityIndex, 9)
     expect(p.derived.filmActivityIndex).toBeGreaterThan(0)
     expect(p.derived.filmActivityIndex).toBeLessThanOrEqual(10)
@@ -98,7 +104,7 @@ describe('products', () => {
     const renamed = await manager.patch(`/api/products/${p.id}`, { name: 'Brinefield White, Late Bottling', servingTempC: 12, costPerBottleMinor: 1600 })
     expect(renamed.status).toBe(200)
     expect(renamed.body).toMatchObject({ name: 'Brinefield White, Late Bottling', servingTempC: 12, costPerBottleMinor: 1600, code: `${tag}-B` })
-    expect(renamed.body.derived.filmActivityIndex).toBeCloseTo(computeFilm({ abvPctVol: 12.5, tempC: 12, sugarGL: 2 }).filmActivityIndex, 9)
+    expect(renamed.body.derived.filmActivityIndex).toBeCloseTo((await modelled(manager, 12.5, 12, 2)).filmActivityIndex, 9)
     expect((await manager.patch(`/api/products/${p.id}`, { status: 'retired' })).body.status).toBe('retired')
     const again = await manager.patch(`/api/products/${p.id}`, { producer: 'Another Test Cellar' })
     expect(again.body.status).toBe('retired')
@@ -125,7 +131,7 @@ describe('products', () => {
     expect(res.body.history.map((m: { id: number }) => m.id)).toEqual([res.body.current.id, first.id])
     expect(res.body.history[1]).toMatchObject({ abvPctVol: 12.5, residualSugarGL: 2, measuredOn: '2026-10-01' })
     expect(res.body.derived.ethanolGramsPerPour).toBeCloseTo(60 * 0.131 * 0.78924, 6) // 60 mL × 13.1 % × 0.78924 g/mL (OIML R 22)
-    expect(res.body.derived.filmActivityIndex).toBeCloseTo(computeFilm({ abvPctVol: 13.1, tempC: 10, sugarGL: 1.2 }).filmActivityIndex, 9)
+    expect(res.body.derived.filmActivityIndex).toBeCloseTo((await modelled(manager, 13.1, 10, 1.2)).filmActivityIndex, 9)
 
     const older = await manager.post(`/api/products/${p.id}/measurements`, { abvPctVol: 12.0, residualSugarGL: 2.5, lab: 'Old Lab', method: 'M', measuredOn: '2026-06-01' })
     expect(older.body.current.id).toBe(res.body.current.id)
