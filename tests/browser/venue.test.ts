@@ -129,5 +129,5 @@ describe('venue settings in the browser', () => {
     expect(await footer.getByRole('link', { name: CONTACT.phone }).getAttribute('href')).toBe('tel:+61255501234')
     await footer.screenshot({ path: resolve(SHOTS_DIR, 'venue-footer-phone.png') })
     await home.close()
-  })
+  }, 90_000)
 })
