@@ -222,6 +222,11 @@ function drawGlass(doc: PDFKit.PDFDocument, pour: FlightCard['pours'][number], x
   doc.save()
   doc.translate(x, y).scale(scale)
   doc.path(g.liquidPath).fillOpacity(0.45).fill(AMBER)
+  if (g.swirl) {
+    doc.path(g.swirl.curtainLeft).fillOpacity(0.3).fill('#e0a54a')
+    doc.path(g.swirl.curtainRight).fillOpacity(0.3).fill('#e0a54a')
+  }
+  for (const ring of g.rings) doc.moveTo(ring.x1, ring.y).lineTo(ring.x2, ring.y).lineWidth(g.stroke * 1.6).strokeOpacity(1).strokeColor('#cdb88f').stroke()
   if (g.band) {
     doc.path(g.band.left).fillOpacity(0.75).fill('#e0a54a')
     doc.path(g.band.right).fillOpacity(0.75).fill('#e0a54a')

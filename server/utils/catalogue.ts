@@ -70,6 +70,8 @@ export function productView(p: ProductWithMeasurement & { history?: ProductMeasu
       standardDrinksPerPour: facts.standardDrinks,
       filmActivityIndex: facts.filmActivityIndex,
       tearsExpected: facts.film.predictions.tearsExpected,
+      predictions: facts.film.predictions,
+      room: facts.film.inputs.room,
     },
   }
 }

@@ -1,5 +1,5 @@
 import type { GlassShape } from '../glassDiagram'
-import type { TearPrediction } from '../science'
+import type { RoomAir, TearPrediction } from '../science'
 import type { ImageView, RenderedText } from './content'
 
 /** One pour's lines on a flight card. */
@@ -70,6 +70,8 @@ export interface PourPage {
   pour: CardPour
   photo: ImageView | null
   description: string[]
+  /** The room's air the pour's predictions and description were computed for (the film's own input). */
+  room: RoomAir
   servingTempC: number
   residualSugarGL: number
   abvPctVol: number

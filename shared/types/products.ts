@@ -1,5 +1,6 @@
 import type { LabSheetKind } from '../labSheet'
 import type { ProductFields, ProductStatus } from '../products'
+import type { RoomAir, TearPrediction } from '../science'
 
 /** One lab measurement of a product. */
 export interface MeasurementView {
@@ -30,6 +31,10 @@ export interface ProductView extends ProductFields {
     standardDrinksPerPour: number
     filmActivityIndex: number
     tearsExpected: boolean
+    /** The whole prediction for that pour, ranges included. */
+    predictions: TearPrediction
+    /** The room's air the prediction was computed for. */
+    room: RoomAir
   }
 }
 

@@ -23,6 +23,7 @@ export default defineEventHandler(async (event): Promise<PourPage> => {
     pour: card.pours[0]!,
     photo: pour.photo,
     description: describePour(pour.film, { temperatureUnit: venue.temperatureUnit === 'f' ? 'F' : 'C' }),
+    room: pour.film.inputs.room,
     servingTempC: pour.servingTempC,
     residualSugarGL: pour.residualSugarGL,
     abvPctVol: pour.abvPctVol,

@@ -1,0 +1,223 @@
+import { mkdirSync } from 'node:fs'
+import { resolve } from 'node:path'
+import { beforeAll, describe, expect, it } from 'vitest'
+import type { Locator, Page, Request } from 'playwright-core'
+import { SHOTS_DIR, openBrowser, shot, signInThroughForm } from '../support/browser'
+import { Client } from '../support/http'
+import { demoFlightId } from '../support/booking'
+import { DEMO_PASSWORD } from '../../server/demo/data'
+import type { PourPage } from '../../shared/types/cards'
+import type { FlightView } from '../../shared/types/flights'
+import type { ProductView } from '../../shared/types/products'
+
+/**
+ * What a guest reads about the glass: the pour page a card's QR code opens shows the API's own
+ * ranges and the room they assume; the strongest pour that runs tears shows slower ones than the
+ * table wines; the public page's humidity choice redraws the curve for that room; and the
+ * builder's rows carry the same figures. Screenshots at a laptop's and a phone's width.
+ */
+
+type Range = { low: number, high: number }
+
+/** "5.4–16 mm" → { low: 5.4, high: 16 }; "about 9 mm" → { low: 9, high: 9 }. */
+function parseRange(text: string): Range {
+  const t = text.replace(/\s+/g, ' ').trim()
+  const pair = /(\d+(?:\.\d+)?)–(\d+(?:\.\d+)?)/.exec(t)
+  if (pair) return { low: Number(pair[1]), high: Number(pair[2]) }
+  const one = /about (\d+(?:\.\d+)?)/.exec(t)
+  if (!one) throw new Error(`no range in "${text}"`)
+  return { low: Number(one[1]), high: Number(one[1]) }
+}
+
+/** A range printed to 2 significant figures is within 5 % of the API's (rounding, common practice, no source). */
+function expectShown(shown: Range, api: Range, what: string) {
+  expect(Math.abs(shown.low - api.low) / api.low, `${what} low`).toBeLessThanOrEqual(0.05)
+  expect(Math.abs(shown.high - api.high) / api.high, `${what} high`).toBeLessThanOrEqual(0.05)
+}
+
+const figure = (page: Page, key: string) => page.locator(`[data-figure="${key}"] dd`).first()
+const fahrenheit = (c: number) => Math.round((c * 9) / 5 + 32) // °F = °C × 9/5 + 32 (definition)
+
+/** Every label inside the diagram's SVG lies inside its viewBox (real font metrics, so nothing clips). */
+async function labelsInside(svg: Locator): Promise<string[]> {
+  return svg.evaluate((el) => {
+    const s = el as SVGSVGElement
+    const v = s.viewBox.baseVal
+    const out: string[] = []
+    for (const t of Array.from(s.querySelectorAll('text'))) {
+      const b = t.getBBox()
+      if (b.x < v.x - 0.01 || b.y < v.y - 0.01 || b.x + b.width > v.x + v.width + 0.01 || b.y + b.height > v.y + v.height + 0.01) out.push(t.textContent ?? '')
+    }
+    return out
+  })
+}
+
+async function elementShot(target: Locator, name: string) {
+  mkdirSync(SHOTS_DIR, { recursive: true })
+  await target.screenshot({ path: resolve(SHOTS_DIR, `${name}.png`) })
+}
+
+describe('the guest\'s pages show the model\'s ranges', () => {
+  let flightId: number
+  let pages: PourPage[]
+  beforeAll(async () => {
+    flightId = await demoFlightId()
+    const anon = new Client()
+    const flight = await anon.get<FlightView>(`/api/flights/${flightId}`)
+    expect(flight.status).toBe(200)
+    pages = []
+    for (const p of flight.body.pours) {
+      const res = await anon.get<PourPage>(`/api/flights/${flightId}/pours/${p.position}`)
+      expect(res.status).toBe(200)
+      pages.push(res.body)
+    }
+    expect(pages.length).toBeGreaterThanOrEqual(4)
+  })
+
+  it('a pour page shows the API\'s band and speed ranges, the same as its text, and the room they assume', async () => {
+    const wine = pages.find(p => p.pour.kind === 'Still wine' && p.pour.prediction.tearsExpected && p.pour.prediction.bandVisible)!
+    expect(wine).toBeTruthy()
+    const { ranges } = wine.pour.prediction
+    for (const [width, name] of [[1280, 'pour-page-ranges'], [375, 'pour-page-ranges-phone']] as const) {
+      const { context, close } = await openBrowser({ width, height: 900 })
+      const page = await context.newPage()
+      await page.goto(`/pour/${flightId}/${wine.pour.position}`)
+      await page.getByRole('heading', { name: /^In the / }).waitFor()
+      const band = await figure(page, 'band').innerText()
+      const speed = await figure(page, 'speed').innerText()
+      expectShown(parseRange(band), ranges.clearBandHeight_mm!, 'band')
+      expectShown(parseRange(speed), ranges.tearFallSpeed_mm_s!, 'speed')
+      expectShown(parseRange(await figure(page, 'onset').innerText()), ranges.tearOnset_s!, 'onset')
+      expectShown(parseRange(await figure(page, 'show').innerText()), ranges.swirlShow_s!, 'curtain')
+      // The words under "What to look for" (describePour, from the API) print the same figures.
+      const words = wine.description.join(' ').replace(/\s+/g, ' ')
+      expect(words).toContain(band.replace(/\s+/g, ' '))
+      expect(words).toContain(speed.replace(/\s+/g, ' '))
+      // The room: the film's own input, in the venue's unit (the demo venue writes °F).
+      const room = (await page.locator('[data-room]').first().innerText()).replace(/\s+/g, ' ')
+      expect(room).toContain(`${Math.round(wine.room.relativeHumidityPct)} % humidity`)
+      expect(room).toContain(`${fahrenheit(wine.room.airTempC)} °F`)
+      // The diagram's band label carries the range, and no label runs outside the drawing.
+      const svg = page.locator('figure svg[data-show="band"]').first()
+      expect((await svg.locator('text').allTextContents()).join(' ').replace(/\s+/g, ' ')).toContain(band.replace(/\s+/g, ' '))
+      expect(await labelsInside(svg)).toEqual([])
+      const box = (await svg.boundingBox())!
+      expect(box.x + box.width).toBeLessThanOrEqual(width)
+      // The index as a range, not one number.
+      const index = parseRange(await page.locator('[data-index]').first().innerText())
+      expect(index.high).toBeGreaterThan(index.low)
+      await shot(page, name)
+      await close()
+    }
+  })
+
+  it('the strongest pour that runs tears (a spirit or fortified wine) shows slower tears than the table wines, by the API\'s numbers', async () => {
+    const byStrength = [...pages].sort((a, b) => b.abvPctVol - a.abvPctVol)
+    const strong = byStrength.find(p => p.pour.prediction.tearsExpected)!
+    expect(['Spirit', 'Fortified wine']).toContain(strong.pour.kind)
+    const wines = pages.filter(p => p.pour.kind === 'Still wine')
+    expect(wines.length).toBeGreaterThan(0)
+    const { context, close } = await openBrowser({ width: 375, height: 900 })
+    const page = await context.newPage()
+    const shownSpeed = async (p: PourPage) => {
+      await page.goto(`/pour/${flightId}/${p.pour.position}`)
+      const shown = parseRange(await figure(page, 'speed').innerText())
+      expectShown(shown, p.pour.prediction.ranges.tearFallSpeed_mm_s!, p.pour.name)
+      return shown
+    }
+    const strongShown = await shownSpeed(strong)
+    await shot(page, 'pour-page-strongest-phone')
+    for (const wine of wines) {
+      expect(strong.pour.prediction.tearFallSpeed_mm_s!, wine.pour.name).toBeLessThan(wine.pour.prediction.tearFallSpeed_mm_s!)
+      const wineShown = await shownSpeed(wine)
+      expect(strongShown.low + strongShown.high, wine.pour.name).toBeLessThan(wineShown.low + wineShown.high)
+    }
+    // A stronger pour without tears says so, and shows no tear figures to contradict it.
+    for (const p of byStrength.filter(p => !p.pour.prediction.tearsExpected)) {
+      await page.goto(`/pour/${flightId}/${p.pour.position}`)
+      await page.getByRole('heading', { name: /^In the / }).waitFor()
+      expect(await page.locator('[data-figure]').count()).toBe(0)
+      expect(await page.locator('[data-summary]').innerText()).toMatch(/no (distinct )?tears/i)
+    }
+    await close()
+  })
+
+  it('the glass page\'s humidity choice asks for the curve in that room, and says which room it shows', async () => {
+    for (const [width, name] of [[1280, 'glass-page-humidity'], [375, 'glass-page-humidity-phone']] as const) {
+      const { context, close } = await openBrowser({ width, height: 900 })
+      const page = await context.newPage()
+      const curves: Request[] = []
+      page.on('request', (r) => {
+        if (r.url().includes('/api/science/curve')) curves.push(r)
+      })
+      await page.goto('/glass')
+      await page.locator('canvas').first().waitFor()
+      const caption = page.locator('figcaption').filter({ hasText: 'the index is 0 for water' })
+      await expect.poll(() => caption.innerText()).toMatch(/50\s%\shumidity/)
+      const answer = page.waitForResponse(r => r.url().includes('/api/science/curve') && new URL(r.url()).searchParams.get('rh') === '70')
+      await page.getByText('70 %', { exact: true }).click()
+      const res = await answer
+      expect(res.status()).toBe(200)
+      const q = new URL(res.url()).searchParams
+      expect(q.get('rh')).toBe('70')
+      expect(q.get('airTempC')).toBe('21') // the model's default room air, DEFAULT_ROOM_AIR
+      expect(curves.some(r => new URL(r.url()).searchParams.get('rh') === '70')).toBe(true)
+      await expect.poll(() => caption.innerText()).toMatch(/70\s%\shumidity/)
+      await page.waitForTimeout(300)
+      await shot(page, name)
+      await close()
+    }
+  })
+
+  it('the flight page\'s pour cards and the flight\'s pour list carry the same ranges and the room', async () => {
+    const { context, close } = await openBrowser({ width: 375, height: 900 })
+    const page = await context.newPage()
+    await page.goto(`/flights/${flightId}`)
+    const cards = page.locator('article').filter({ has: page.locator('[data-tear-figures]') })
+    await cards.first().waitFor()
+    expect(await cards.count()).toBe(pages.length)
+    for (const [i, p] of pages.entries()) {
+      const card = cards.nth(i)
+      if (p.pour.prediction.tearsExpected) expectShown(parseRange(await card.locator('[data-figure="band"] dd').innerText()), p.pour.prediction.ranges.clearBandHeight_mm!, p.pour.name)
+      else expect(await card.locator('[data-figure]').count()).toBe(0)
+      expect((await card.locator('[data-room]').innerText()).replace(/\s+/g, ' ')).toContain(`${fahrenheit(p.room.airTempC)} °F`)
+    }
+    await shot(page, 'flight-page-ranges-phone')
+    await page.goto(`/pour/${flightId}`)
+    await page.getByRole('link', { name: /^1\. / }).waitFor()
+    expect((await page.locator('[data-room]').innerText()).replace(/\s+/g, ' ')).toContain(`${Math.round(pages[0]!.room.relativeHumidityPct)} % humidity`)
+    await shot(page, 'pour-list-ranges-phone')
+    await close()
+  })
+
+  it('the builder\'s rows show the ranges and the room, on a laptop and a phone', async () => {
+    for (const [width, name] of [[1280, 'builder-row-ranges'], [375, 'builder-row-ranges-phone']] as const) {
+      const { context, close } = await openBrowser({ width, height: 900 })
+      const page = await context.newPage()
+      await signInThroughForm(page, 'manager@saltmarsh.test', DEMO_PASSWORD)
+      await page.waitForURL('**/manage')
+      await page.goto(`/manage/flights/${flightId}`)
+      const rows = page.locator('ol > li').filter({ has: page.locator('[data-tear-figures]') })
+      await rows.first().waitFor()
+      expect(await rows.count()).toBe(pages.length)
+      for (const [i, p] of pages.entries()) {
+        const row = rows.nth(i)
+        if (p.pour.prediction.tearsExpected) expectShown(parseRange(await row.locator('[data-figure="speed"] dd').innerText()), p.pour.prediction.ranges.tearFallSpeed_mm_s!, p.pour.name)
+        else expect(await row.locator('[data-figure]').count()).toBe(0)
+        expect((await row.locator('[data-room]').innerText()).replace(/\s+/g, ' ')).toContain(`${Math.round(p.room.relativeHumidityPct)} % humidity`)
+      }
+      await elementShot(rows.nth(pages.findIndex(p => p.pour.kind === 'Still wine')), name)
+      await shot(page, `${name}-page`)
+      // A product's page: its tasting pour's ranges, as its API view gives them.
+      const products = await (await context.request.get('/api/products')).json() as ProductView[]
+      const fortified = products.find(p => p.kind === 'fortified' && p.derived.predictions.tearsExpected)!
+      await page.goto(`/manage/products/${fortified.id}`)
+      const facts = page.locator('[data-tear-figures]')
+      await facts.waitFor()
+      expectShown(parseRange(await facts.locator('[data-figure="speed"] dd').innerText()), fortified.derived.predictions.ranges.tearFallSpeed_mm_s!, fortified.name)
+      expect((await facts.locator('[data-room]').innerText()).replace(/\s+/g, ' ')).toContain(`${fahrenheit(fortified.derived.room.airTempC)} °F`)
+      await shot(page, `product-facts-ranges${width < 500 ? '-phone' : ''}`)
+      await close()
+    }
+  })
+})
