@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext, Locator, Page } from 'playwright-core'
 import { openBrowser, shot, signInThroughForm } from '../support/browser'
 import { Client } from '../support/http'
+import { signedIn } from '../support/people'
 import { demoFlightId } from '../support/booking'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
 import { formatDay, formatTime } from '../../shared/dates'
@@ -119,6 +120,32 @@ describe('on a phone', () => {
     await page.keyboard.press('Escape')
     await fitsWidth(page)
     await shot(page, 'public-flight-phone')
+    await page.close()
+  })
+
+  it('a note with a long word or address wraps inside its pour instead of widening the page', async () => {
+    const manager = await signedIn('manager')
+    const marketing = await signedIn('marketing')
+    const product = await manager.post('/api/products', {
+      code: `LW-${Date.now() % 100000}`, kind: 'still_wine', name: 'Longword Riesling', producer: 'Invented Cellars', vintageOrBatch: '2025', servingTempC: 9,
+      allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1000,
+      measurement: { abvPctVol: 11, residualSugarGL: 12, lab: 'Test lab', method: 'Test method', measuredOn: '2026-10-01' },
+    })
+    expect(product.status, JSON.stringify(product.body)).toBe(201)
+    const note = `Ask for https://example.test/${'a'.repeat(70)} and Rieslingweinbergslagenbezeichnungsverordnung.`
+    expect((await marketing.request('PUT', `/api/content/product_note/${product.body.id}`, { body: note })).status).toBe(200)
+    expect((await marketing.post(`/api/content/product_note/${product.body.id}/publish`)).status).toBe(200)
+    const glass = ((await manager.get('/api/glasses')).body as { id: number }[])[0]!.id
+    const red = ((await manager.get('/api/products')).body as { id: number, code: string }[]).find(p => p.code === 'SV-CF-23')!.id
+    const pours = [product.body.id, red].map(productId => ({ productId, volumeMl: 60, glassId: glass, servingTempC: 12 }))
+    const flight = await manager.post('/api/flights', { name: `Long words ${Date.now()}`, summary: 'Two pours', pours })
+    expect(flight.status, JSON.stringify(flight.body)).toBe(201)
+    const published = await manager.post(`/api/flights/${flight.body.id}/publish`)
+    expect(published.status, JSON.stringify(published.body)).toBe(200)
+    const page = await phone.context.newPage()
+    await page.goto(`/flights/${flight.body.id}`)
+    await page.getByText('Rieslingweinbergslagen', { exact: false }).waitFor()
+    await fitsWidth(page)
     await page.close()
   })
 })
