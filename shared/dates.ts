@@ -68,3 +68,18 @@ export function formatFromNow(instant: string | Date, clock: VenueClock, now = n
     : abs < 48 * 3_600_000 ? [Math.round(ms / 3_600_000), 'hour'] : [Math.round(ms / 86_400_000), 'day']
   return new Intl.RelativeTimeFormat(clock.locale, { numeric: 'always' }).format(value, unit)
 }
+
+/**
+ * An instant as ISO 8601 local time with the zone's offset at that instant, to the second:
+ * "2026-12-05T14:00:00-05:00" (what schema.org's startDate asks for). Across a daylight-saving
+ * change each instant keeps its own offset.
+ */
+export function formatIsoInZone(instant: string | Date, timeZone: string): string {
+  const d = toDate(instant)
+  const parts = Object.fromEntries(new Intl.DateTimeFormat('en-US', {
+    timeZone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit', timeZoneName: 'longOffset',
+  }).formatToParts(d).map(p => [p.type, p.value]))
+  // "GMT-05:00", or "GMT" when the offset is zero.
+  const offset = (parts.timeZoneName ?? 'GMT').replace(/^GMT/, '') || '+00:00'
+  return `${parts.year}-${parts.month}-${parts.day}T${parts.hour}:${parts.minute}:${parts.second}${offset}`
+}

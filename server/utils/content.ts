@@ -6,9 +6,10 @@ import { renderNote } from '../../shared/markdown'
 import { contentParams } from '../../shared/schemas/content'
 import type { ContentDocView, ContentRevision, RenderedText } from '../../shared/types/content'
 
-export interface ArticleDefault { slug: string, title: string, summary: string, body: string }
+/** A shipped article; `updated` (YYYY-MM-DD, front matter) is when its text last changed, for the sitemap. */
+export interface ArticleDefault { slug: string, title: string, summary: string, body: string, updated: string | null }
 
-/** The default articles shipped in content/articles, parsed once (front matter: title, summary). */
+/** The default articles shipped in content/articles, parsed once (front matter: title, summary, updated). */
 let defaults: Promise<Map<string, ArticleDefault>> | undefined
 export function articleDefaults(): Promise<Map<string, ArticleDefault>> {
   defaults ??= (async () => {
@@ -20,7 +21,7 @@ export function articleDefaults(): Promise<Map<string, ArticleDefault>> {
       const m = raw.match(/^---\n([\s\S]*?)\n---\n?([\s\S]*)$/)
       const meta = Object.fromEntries((m?.[1] ?? '').split('\n').map(l => l.split(/:\s*/, 2) as [string, string]).filter(([k, v]) => k && v))
       const slug = key.replace(/\.md$/, '').split(':').pop()!
-      out.set(slug, { slug, title: meta.title ?? slug, summary: meta.summary ?? '', body: (m?.[2] ?? raw).trim() })
+      out.set(slug, { slug, title: meta.title ?? slug, summary: meta.summary ?? '', body: (m?.[2] ?? raw).trim(), updated: /^\d{4}-\d{2}-\d{2}$/.test(meta.updated ?? '') ? meta.updated! : null })
     }
     return out
   })()

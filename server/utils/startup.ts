@@ -1,8 +1,8 @@
 import { resolve } from 'node:path'
 import { migrate } from 'drizzle-orm/mysql2/migrator'
 import { count, eq } from 'drizzle-orm'
-import { DateTime } from 'luxon'
-import { DEFAULT_GLASSES, DEMO_FLIGHTS, DEMO_LAB, DEMO_PASSWORD, DEMO_PRODUCTS, DEMO_SESSION_SERIES, DEMO_USERS, DEMO_VENUE } from '../demo/data'
+import { DEFAULT_GLASSES, DEMO_FLIGHTS, DEMO_LAB, DEMO_PASSWORD, DEMO_PRODUCTS, DEMO_USERS, DEMO_VENUE } from '../demo/data'
+import { planDemoSessions } from '../demo/schedule'
 
 /** Default venue for a fresh production database; the manager edits it in the venue settings. */
 const DEFAULT_VENUE = {
@@ -49,6 +49,8 @@ async function prepare(): Promise<void> {
 
 async function seedDemo(): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD)
+  const pictures = await renderDemoPictures()
+  const written: string[] = []
   await useDb().transaction(async (tx) => {
     const [venue] = await tx.insert(tables.venues).values(DEMO_VENUE).$returningId()
     const venueId = venue!.id
@@ -63,32 +65,35 @@ async function seedDemo(): Promise<void> {
     await tx.insert(tables.glasses).values(DEFAULT_GLASSES.map(g => ({ ...g, venueId })))
     const glassIds = new Map((await tx.select().from(tables.glasses)).map(g => [g.name, g.id]))
     const [host] = await tx.select().from(tables.users).where(eq(tables.users.role, 'host')).limit(1)
+    const [marketer] = await tx.select().from(tables.users).where(eq(tables.users.role, 'marketing')).limit(1)
+    const flightIds = new Map<string, number>()
     for (const f of DEMO_FLIGHTS) {
       const [row] = await tx.insert(tables.flights).values({ venueId, name: f.name, summary: f.summary, status: f.publish ? 'published' : 'draft', publishedAt: f.publish ? new Date() : null }).$returningId()
       const flightId = row!.id
+      flightIds.set(f.name, flightId)
       await tx.update(tables.flights).set({ lineageId: flightId }).where(eq(tables.flights.id, flightId))
       await writePours(tx, flightId, f.pours.map(p => ({ productId: productIds.get(p.code)!, glassId: glassIds.get(p.glass)!, volumeMl: p.volumeMl, servingTempC: p.servingTempC })))
       if (!f.publish) continue
-      for (const series of DEMO_SESSION_SERIES) {
-        const today = DateTime.now().setZone(DEMO_VENUE.timeZone)
-        const first = today.plus({ days: ((series.weekday - today.weekday + 7) % 7) || 7 })
-        const starts = weeklyStartsUtc({ startDate: first.toISODate()!, startTime: series.startTime, weeks: series.weeks, timeZone: DEMO_VENUE.timeZone })
-        const seriesId = crypto.randomUUID()
-        await tx.insert(tables.tastingSessions).values(starts.map(startsAt => ({
-          venueId, flightId, startsAt, seriesId, hostId: host?.id ?? null, currency: DEMO_VENUE.currency,
-          durationMinutes: series.durationMinutes, seats: series.seats, priceMinor: series.priceMinor, bookingCutoffMinutes: series.bookingCutoffMinutes,
-        })))
-      }
-      // One session later today, so the host's day has parties to check in from the first start.
-      const soon = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ minutes: 90 }).startOf('hour')
-      await tx.insert(tables.tastingSessions).values({
-        venueId, flightId, startsAt: soon.toUTC().toJSDate(), hostId: host?.id ?? null, currency: DEMO_VENUE.currency,
-        durationMinutes: 75, seats: 10, priceMinor: 3500, bookingCutoffMinutes: 30,
-      })
+      // Weekly series off the public holidays, and one session later today so the host's day has
+      // parties to check in from the first start (server/demo/schedule.ts).
+      const plan = planDemoSessions(new Date(), DEMO_VENUE.timeZone)
+      for (const s of plan.filter(p => p.holiday)) console.log(`[larmoir] demo: the session later today falls on ${s.holiday!.name}, kept as a holiday opening`)
+      const seriesIds = new Map<number, string>()
+      await tx.insert(tables.tastingSessions).values(plan.map((s) => {
+        if (s.series !== null && !seriesIds.has(s.series)) seriesIds.set(s.series, crypto.randomUUID())
+        return {
+          venueId, flightId, startsAt: s.startsAt, seriesId: s.series === null ? null : seriesIds.get(s.series)!, hostId: host?.id ?? null, currency: DEMO_VENUE.currency,
+          durationMinutes: s.durationMinutes, seats: s.seats, priceMinor: s.priceMinor, bookingCutoffMinutes: s.bookingCutoffMinutes,
+        }
+      }))
     }
+    await seedDemoContent(tx, venueId, { products: productIds, flights: flightIds, authorId: marketer?.id ?? null }, pictures, written)
     await seedDemoBookings(tx, venueId)
+  }).catch(async (err) => {
+    for (const name of written) await removeImageFiles(name)
+    throw err
   })
-  console.log(`[larmoir] demo data loaded: ${DEMO_USERS.length} people, ${DEMO_PRODUCTS.length} products, ${DEMO_FLIGHTS.length} flights`)
+  console.log(`[larmoir] demo data loaded: ${DEMO_USERS.length} people, ${DEMO_PRODUCTS.length} products with notes and photos, ${DEMO_FLIGHTS.length} flights`)
 }
 
 /**

@@ -70,4 +70,8 @@ export interface PublishedFlight {
   currency: string
   nextSessions: PublicSession[]
   sessionCount: number
+  /** Shortest and longest session open for booking, minutes; null without sessions. */
+  lengthMinutes: { min: number, max: number } | null
+  /** The pours' photos in pour order (those that have one): the flight's line-up and link previews. */
+  photos: ImageView[]
 }

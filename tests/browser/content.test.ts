@@ -23,7 +23,7 @@ describe('the marketing editor', () => {
     expect(await preview.innerText()).toContain('<script>alert(1)</script>')
     await page.getByRole('button', { name: 'Save draft' }).click()
     await page.getByText('Draft saved.').waitFor()
-    await page.getByRole('button', { name: 'Publish' }).click()
+    await page.getByRole('button', { name: 'Publish', exact: true }).click() // the demo's note is published, so Unpublish is there too
     await page.getByText('Published: guests').waitFor()
     await page.getByLabel('Text (Markdown)').fill('## Nose\n\nGreen apple, **brioche** and a little sea salt.')
     await page.getByRole('button', { name: 'Save draft' }).click()

@@ -29,10 +29,12 @@ describe('tasting notes', () => {
   it('a draft never reaches guests; publishing does; hostile Markdown renders inert', async () => {
     const saved = await marketing.request('PUT', `/api/content/product_note/${productId}`, { body: HOSTILE })
     expect(saved.status).toBe(200)
-    expect(saved.body.status).toBe('draft')
+    // Saving writes the draft only; what was published before (the demo's note) stays published.
+    expect(saved.body.draftBody).toBe(HOSTILE)
+    expect(saved.body.publishedBody).not.toBe(HOSTILE)
     const before = (await new Client().get(`/api/flights/${flightId}`)).body
-    expect(before.pours.find((p: { productId: number }) => p.productId === productId).tastingNote).toBeNull()
-    expect((await manager.get(`/api/flights/${flightId}/card`)).body.pours.find((p: { name: string }) => p.name === 'Tidewater Albariño').tastingNote).toBeNull()
+    expect(before.pours.find((p: { productId: number }) => p.productId === productId).tastingNote.text).not.toContain('Salt and stone')
+    expect((await manager.get(`/api/flights/${flightId}/card`)).body.pours.find((p: { name: string }) => p.name === 'Tidewater Albariño').tastingNote.text).not.toContain('Salt and stone')
 
     expect((await marketing.post(`/api/content/product_note/${productId}/publish`)).body.status).toBe('published')
     const pour = (await new Client().get(`/api/flights/${flightId}`)).body.pours.find((p: { productId: number }) => p.productId === productId)

@@ -22,6 +22,8 @@ export default defineEventHandler(async (): Promise<PublishedFlight[]> => {
       currency: venue.currency,
       nextSessions: own.slice(0, 3),
       sessionCount: own.length,
+      lengthMinutes: own.length ? { min: Math.min(...own.map(s => s.durationMinutes)), max: Math.max(...own.map(s => s.durationMinutes)) } : null,
+      photos: f.pours.flatMap(p => (p.photo ? [p.photo] : [])),
     }
   })
 })

@@ -4,12 +4,13 @@ import { IMAGE_MAX_BYTES, IMAGE_ROLES } from '../../../shared/content'
 import { fieldErrorsFromZod } from '../../../shared/utils/fieldErrors'
 
 const fields = z.object({
-  productId: z.coerce.number({ error: 'Choose a product.' }).int().positive({ error: 'Choose a product.' }),
+  // Without a product, the image is the venue's own photo of the room (the home page leads with the newest).
+  productId: z.coerce.number({ error: 'Choose a product.' }).int().positive({ error: 'Choose a product.' }).optional(),
   role: z.enum(IMAGE_ROLES, { error: 'Choose photo or label.' }),
   altText: z.string().trim().max(300, { error: 'Use at most 300 characters.' }).default(''),
-})
+}).refine(f => f.productId !== undefined || f.role === 'photo', { path: ['role'], error: 'A picture of the room is a photo, not a label.' })
 
-/** Uploads a product photo or label image (multipart: file, productId, role, altText). */
+/** Uploads a product photo or label image, or a photo of the room (multipart: file, productId or none, role, altText). */
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'manager', 'marketing')
   const length = Number(getRequestHeader(event, 'content-length') ?? 0)
@@ -25,9 +26,12 @@ export default defineEventHandler(async (event) => {
   if (!file?.data.length) errors.file = 'Attach an image.'
   if (Object.keys(errors).length || !parsed.success) invalidFields(errors)
   const venue = await getVenue()
-  const [product] = await useDb().select({ id: tables.products.id }).from(tables.products).where(and(eq(tables.products.id, parsed.data.productId), eq(tables.products.venueId, venue.id)))
-  if (!product) notFound('No such product.')
-  const id = await storeImage(file!.data, { venueId: venue.id, productId: product.id, role: parsed.data.role, altText: parsed.data.altText, userId: user.id })
+  const { productId } = parsed.data
+  if (productId !== undefined) {
+    const [product] = await useDb().select({ id: tables.products.id }).from(tables.products).where(and(eq(tables.products.id, productId), eq(tables.products.venueId, venue.id)))
+    if (!product) notFound('No such product.')
+  }
+  const id = await storeImage(file!.data, { venueId: venue.id, productId: productId ?? null, role: parsed.data.role, altText: parsed.data.altText, userId: user.id })
   const [row] = await useDb().select().from(tables.images).where(eq(tables.images.id, id))
   setResponseStatus(event, 201)
   return imageView(row!)
