@@ -73,42 +73,23 @@ export interface FilmInputs {
 /** Why a glass shows no tears although the physics would draw a film. */
 export type TearsSuppressedBy = 'foam' | 'held' | null
 
-/** What a guest can check in the glass, each central value with its 10th–90th percentile range. */
-export interface TearPrediction {
+/** The climbing film's figures a guest's prediction carries as they are (climbingFilm.ts names their units). */
+type ClimbFigures = Pick<FilmClimb,
+  'capillaryLength_mm' | 'meniscusHeight_mm' | 'clearBandHeight_mm' | 'marangoniStress_Pa' | 'filmThickness_um'
+  | 'climbingFilmThickness_um' | 'climbSpeed_mm_s' | 'climbFlux_mm2_s' | 'tearOnset_s' | 'tearFallSpeed_mm_s'
+  | 'tearWidth_mm' | 'tearSpacing_mm' | 'tearsAround' | 'swirlShow_s'>
+
+/**
+ * What a guest can check in the glass, each central value with its 10th–90th percentile range.
+ * The tear figures are null where no tears run.
+ */
+export interface TearPrediction extends ClimbFigures {
   /** Whether tears run after a swirl. */
   tearsExpected: boolean
   /** Whether a steady clear band stands above the meniscus (else the legs come from the swirl's curtain). */
   bandVisible: boolean
   /** Set when the drink's surface holds still: beer's foam, or a pull below SURFACE_HOLD_MN_M. */
   suppressedBy: TearsSuppressedBy
-  /** Capillary length √(σ/(ρg)), mm. */
-  capillaryLength_mm: number
-  /** Meniscus rise on the wall, mm. */
-  meniscusHeight_mm: number
-  /** Clear band from the meniscus to the ridge, mm (0 if no film). */
-  clearBandHeight_mm: number
-  /** Marangoni shear stress, Pa. */
-  marangoniStress_Pa: number
-  /** Zero-net-flux film thickness h*, µm. */
-  filmThickness_um: number
-  /** Climbing film thickness h_c, µm. */
-  climbingFilmThickness_um: number
-  /** Mean climbing speed, mm/s. */
-  climbSpeed_mm_s: number
-  /** Volume flux up the wall per unit length of the liquid line, mm²/s (what the index measures). */
-  climbFlux_mm2_s: number
-  /** Time after a swirl to the first tears, s. */
-  tearOnset_s: number | null
-  /** Speed of a falling tear, mm/s. */
-  tearFallSpeed_mm_s: number | null
-  /** Tear width ≈ capillary length, mm. */
-  tearWidth_mm: number | null
-  /** Spacing between neighbouring tears, mm. */
-  tearSpacing_mm: number | null
-  /** How many tears stand around the glass at once. */
-  tearsAround: number | null
-  /** How long the swirl's curtain keeps draining into tears, s. */
-  swirlShow_s: number | null
   /** Share of the pour's alcohol that evaporates from its open surface in 10 minutes, %. */
   alcoholLossPer10Min_pct: number
   /** 10th–90th percentile ranges from the documented uncertainties (null where no tears in most draws). */
