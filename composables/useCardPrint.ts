@@ -1,4 +1,5 @@
-import { CARD_MARGIN_PT, CARD_PAPER_POINTS, type CardPaper } from '#shared/cards'
+import { CARD_MARGIN_PT } from '#shared/cards'
+import { CARD_PAPER_POINTS, type CardPaper } from '#shared/paper'
 
 /**
  * A card print page's paper and Print button: the @page rule follows the chosen paper (its size,

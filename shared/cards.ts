@@ -71,17 +71,6 @@ function cardRoom(room: CardRoomInput, temperatureUnit: 'c' | 'f'): CardRoom {
   }
 }
 
-/** The papers a card prints on. */
-export const CARD_PAPERS = ['a5', 'half-letter'] as const
-export type CardPaper = (typeof CARD_PAPERS)[number]
-/**
- * Page sizes in PDF points (1/72 in): A5 is 148 × 210 mm (ISO 216), US half letter 5.5 × 8.5 in
- * (ANSI/ASME Y14.1). The print page sets the same sizes in CSS points, so both print alike.
- */
-export const CARD_PAPER_POINTS: Record<CardPaper, { width: number, height: number, label: string, css: string }> = {
-  'a5': { width: 419.53, height: 595.28, label: 'A5', css: 'A5' },
-  'half-letter': { width: 396, height: 612, label: 'US half letter', css: '5.5in 8.5in' },
-}
 /** The card's margin on every side, points (the PDF's page margin and the print page's @page margin). */
 export const CARD_MARGIN_PT = 22
 

@@ -11,6 +11,7 @@ export const DEMO_VENUE = {
   address: '7 Heron Quay, Wrenfield, ME 04999, USA',
   timeZone: 'America/New_York',
   locale: 'en-US',
+  country: 'US',
   currency: 'USD',
   legalAge: 21,
   volumeUnit: 'floz' as const,

@@ -1,5 +1,5 @@
 import { z } from './zod'
-import { CARD_PAPERS } from '../cards'
+import { CARD_PAPERS } from '../paper'
 
 export const cardPdfQuerySchema = z.object({
   paper: z.enum(CARD_PAPERS, { error: 'Paper must be a5 or half-letter.' }).default('a5'),

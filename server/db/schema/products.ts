@@ -2,6 +2,7 @@ import { mysqlTable, int, varchar, mysqlEnum, double, date, json, text, index, u
 import { timestamps } from './common'
 import { venues } from './venues'
 import { PRODUCT_KINDS, PRODUCT_STATUSES, type Allergen } from '../../../shared/products'
+import { LIQUID_COLOURS } from '../../../shared/liquidColours'
 
 export const products = mysqlTable('products', {
   id: int('id').autoincrement().primaryKey(),
@@ -15,6 +16,8 @@ export const products = mysqlTable('products', {
   servingTempC: double('serving_temp_c').notNull(),
   allergens: json('allergens').$type<Allergen[]>().notNull(),
   bottleSizeMl: int('bottle_size_ml').notNull(),
+  /** The liquid's colour in the trade's words (shared/liquidColours.ts); null: the kind's usual colour. */
+  colour: mysqlEnum('colour', LIQUID_COLOURS),
   /** Integer minor units of the venue's currency. */
   costPerBottleMinor: int('cost_per_bottle_minor').notNull(),
   status: mysqlEnum('status', PRODUCT_STATUSES).notNull().default('active'),

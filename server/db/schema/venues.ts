@@ -1,6 +1,7 @@
 import { mysqlTable, int, varchar, char, text, mysqlEnum, double, json, decimal } from 'drizzle-orm/mysql-core'
 import type { OpeningHours } from '../../../shared/venue'
 import { timestamps } from './common'
+import { CARD_PAPERS } from '../../../shared/paper'
 
 /** One venue today; every venue-scoped table will carry venue_id. */
 export const venues = mysqlTable('venues', {
@@ -11,6 +12,10 @@ export const venues = mysqlTable('venues', {
   timeZone: varchar('time_zone', { length: 64 }).notNull(),
   /** BCP 47 locale the venue's dates, times and numbers are written in (en-US: "Oct 3, 2:00 PM"; en-GB: "3 Oct, 14:00"). */
   locale: varchar('locale', { length: 35 }).notNull().default('en-US'),
+  /** ISO 3166-1 alpha-2 country the venue is in: chooses the cards' paper unless card_paper is set. */
+  country: char('country', { length: 2 }).notNull().default('US'),
+  /** The cards' paper, when the manager has chosen one; null: the usual paper of the venue's country (shared/cards.ts). */
+  cardPaper: mysqlEnum('card_paper', CARD_PAPERS),
   /** ISO 4217 code; amounts elsewhere are integer minor units of it. */
   currency: char('currency', { length: 3 }).notNull(),
   legalAge: int('legal_age').notNull(),
