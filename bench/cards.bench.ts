@@ -27,7 +27,7 @@ const pours = invented.map(([name, kind, abv, sugar, temp, ml], i) => {
   return { position: i + 1, product: { name, kind, producer: 'Bench Cellars', vintageOrBatch: '2025', allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film }
 })
 const totals = flightTotals(pours, 14)
-const venue = { name: 'Bench Tasting Room', address: '1 Bench Lane', cautions: 'Do not drive.\nLegal age only.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC' }
+const venue = { name: 'Bench Tasting Room', address: '1 Bench Lane', cautions: 'Do not drive.\nLegal age only.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC', country: 'US', cardPaper: null }
 const card = (guest?: string) => buildFlightCard({ venue, flight: { id: 1, name: 'Bench flight', version: 1, summary: 'Six pours', pours, totals }, publicUrl: 'http://localhost:3000/pour/1', guestName: guest, room: { air: DEFAULT_ROOM_AIR, source: 'venue', readAt: null } })
 
 async function median(label: string, runs: number, fn: () => Promise<unknown>) {

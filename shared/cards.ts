@@ -3,13 +3,15 @@
  * pour is, how much ethanol it holds, what the glass model predicts and what to look for.
  * Pure: the caller loads the flight and the venue.
  */
-import { describePour, type FilmResult, type RoomAir } from './science'
+import { rangeText, type FilmResult, type RoomAir } from './science'
+import { flightContrasts } from './flightContrast'
 import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
 import type { GlassShape } from './glassDiagram'
-import type { CardRoom, FlightCard } from './types/cards'
+import type { CardFigures, CardRoom, FlightCard } from './types/cards'
 import { cautionLines } from './cautions'
-import { standardDrinkDefinition, standardDrinksLine } from './utils/drinks'
+import { standardDrinkDefinition } from './utils/drinks'
+import { venueCardPaper, type CardPaper } from './paper'
 import type { RenderedText } from './types/content'
 
 export interface CardVenue {
@@ -22,6 +24,8 @@ export interface CardVenue {
   standardDrinkKind: string
   standardDrinkGrams: number
   timeZone: string
+  country: string
+  cardPaper: CardPaper | null
 }
 
 export interface CardPourInput {
@@ -72,20 +76,33 @@ function cardRoom(room: CardRoomInput, temperatureUnit: 'c' | 'f'): CardRoom {
 }
 
 /** The card's margin on every side, points (the PDF's page margin and the print page's @page margin). */
-export const CARD_MARGIN_PT = 22
+export const CARD_MARGIN_PT = 14
+
+/**
+ * The card's type sizes, points: never smaller than 9 pt for what a guest reads at the table and
+ * 8.5 pt for the note and the fine print, so that a card reads in a dim room (the PDF and the print
+ * page both use these).
+ */
+export const CARD_TYPE_PT = { venue: 8.5, title: 17, sub: 9.5, body: 9, pourTitle: 10.5, note: 8.5, fine: 8.5 } as const
+
+/** Height of each glass in the card's row of glasses, mm (at least 30 mm, so a guest can read it). */
+export const CARD_GLASS_MM = 30
 
 /**
  * How a card is fitted to its page, tried in order until it fits (both the PDF and the print page
- * walk this list): the type scale, and whether a note's lists run on ("• pear  • quince") instead of
- * one item a line. Past the last step the card flows onto a second page.
+ * walk this list). The type never shrinks below CARD_TYPE_PT: first the note's lists run on
+ * ("• pear  • quince") instead of one item a line, then the lines close up a little, then the
+ * explanation of why tears form is left to the pour pages the QR code opens. Past the last step the
+ * card flows onto a second page.
  */
-export interface CardFit { scale: number, compactLists: boolean }
+export interface CardFit { compactLists: boolean, leading: number, why: boolean }
 export const CARD_FIT_STEPS: readonly CardFit[] = [
-  { scale: 1, compactLists: false },
-  { scale: 0.95, compactLists: false },
-  { scale: 0.95, compactLists: true },
-  { scale: 0.9, compactLists: true },
-  { scale: 0.86, compactLists: true },
+  { compactLists: false, leading: 1.18, why: true },
+  { compactLists: true, leading: 1.18, why: true },
+  { compactLists: true, leading: 1.12, why: true },
+  { compactLists: true, leading: 1.18, why: false },
+  { compactLists: true, leading: 1.12, why: false },
+  { compactLists: true, leading: 1.08, why: false },
 ]
 
 const ALLERGEN_LABELS: Record<Allergen, string> = {
@@ -94,7 +111,41 @@ const ALLERGEN_LABELS: Record<Allergen, string> = {
 }
 
 /** Why it happens, said once per card (each pour's own numbers are in its lines). */
-const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film turns more watery and its surface tension rises above the rest of the pour. That stronger pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears. The ranges are for a clean glass in still air in this room; a draught or traces of detergent change them.'
+const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film\'s surface tension rises above the rest of the pour. That pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears. The ranges are for a clean glass in still air in this room; a draught or traces of detergent change them.'
+
+/** How to use the millimetre scale printed along the card's edge. */
+const CARD_RULER_HINT = 'Hold this edge against the glass, 0 at the liquid\'s surface, and read where the clear band ends.'
+
+/** A whole-number range for counts: "22–24", "20". */
+function countRange(r: { low: number, high: number } | null, central: number | null): string {
+  const lo = Math.max(1, Math.round(r?.low ?? central ?? 0))
+  const hi = Math.max(lo, Math.round(r?.high ?? central ?? 0))
+  return lo === hi ? `${lo}` : `${lo}–${hi}`
+}
+
+/** A range without its unit ("4.7–6.2"; "9" when both ends round alike). */
+function bare(r: { low: number, high: number } | null, central: number | null): string {
+  const v = r ?? (central === null ? null : { low: central, high: central })
+  return v ? rangeText(v, '').replace(/^about /, '') : '—'
+}
+
+/**
+ * What the card's table under the glasses prints for a pour: the band's height, when tears come
+ * after a swirl, how many run around the glass and how fast they slide, each as its predicted
+ * range without the unit (the row names it). A pour that shows no tears says what it shows instead.
+ */
+function cardFigures(film: FilmResult): CardFigures {
+  const p = film.predictions
+  const r = p.ranges
+  if (p.suppressedBy === 'foam') return { band: 'foam', onset: '—', around: '—', speed: '—' }
+  if (!p.tearsExpected || p.tearFallSpeed_mm_s === null) return { band: 'none', onset: '—', around: '—', speed: '—' }
+  return {
+    band: p.bandVisible ? bare(r.clearBandHeight_mm, p.clearBandHeight_mm) : 'low',
+    onset: p.bandVisible ? bare(r.tearOnset_s, p.tearOnset_s) : 'swirl',
+    around: countRange(r.tearsAround, p.tearsAround),
+    speed: bare(r.tearFallSpeed_mm_s, p.tearFallSpeed_mm_s),
+  }
+}
 
 /**
  * `room` is the air the flight's pours were computed for (the caller passes the same one to the
@@ -102,21 +153,16 @@ const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than wat
  */
 export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, room: CardRoomInput, guestName?: string | null, sessionLabel?: string | null }): FlightCard {
   const { venue, flight } = opts
-  const tempUnit = venue.temperatureUnit === 'f' ? 'F' : 'C'
+  const contrasts = new Map(flightContrasts(flight.pours.map(p => ({ position: p.position, film: p.film }))).map(c => [c.position, c]))
   const pours = flight.pours.map((p) => {
-    const lines = describePour(p.film, { temperatureUnit: tempUnit, brief: true })
-    // Each pour keeps its own sentences; the "Why" and the quality sentence are said once per card.
-    // The card already states the strength and temperature, so "At 12 % ABV and 50 °F, swirl…"
-    // becomes "Swirl…".
-    const lookFor = lines.slice(0, -1).filter(l => !l.startsWith('Why:'))
-      .map(l => l.replace(/^At [\d.]+\u00a0% ABV and -?[\d.]+\u00a0°[CF],? (\w)/, (_, c: string) => c.toUpperCase()))
+    const contrast = contrasts.get(p.position)
     return {
       position: p.position,
       name: p.product.name,
       kind: PRODUCT_KIND_LABELS[p.product.kind],
       producer: p.product.producer,
       vintageOrBatch: p.product.vintageOrBatch,
-      abvText: `${p.abvPctVol} % ABV`,
+      abvText: `${p.abvPctVol}\u00a0% ABV`,
       volumeText: formatVolume(p.volumeMl, venue.volumeUnit),
       servedAtText: formatTemperature(p.servingTempC, venue.temperatureUnit),
       ethanolGrams: round(p.ethanolGrams, 1),
@@ -124,7 +170,8 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       filmActivityIndex: round(p.filmActivityIndex, 1),
       glass: p.glass,
       prediction: p.film.predictions,
-      lookFor,
+      figures: cardFigures(p.film),
+      contrast: contrast ? [contrast.text, contrast.also].filter(Boolean).join(' ') : null,
       tastingNote: p.tastingNote ?? null,
       allergens: p.product.allergens.map(a => ALLERGEN_LABELS[a]),
       pourUrl: `${opts.publicUrl}/${p.position}`,
@@ -145,9 +192,12 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
     },
     room: cardRoom(opts.room, venue.temperatureUnit),
     why: CARD_WHY,
-    quality: 'Tears say nothing about quality: they come from alcohol and evaporation. Sugar slows them; it does not make them.',
+    quality: 'Tears say nothing about quality: alcohol and evaporation make them; sugar only slows them.',
     // The fixed block of responsible service (a manager cannot remove it), then the venue's own lines.
-    cautions: cautionLines(venue, { standardDrinksLine: standardDrinksLine('flight', flight.totals.standardDrinks, venue) }),
+    // The flight's standard drinks are the card's own total line, so the cautions do not repeat them.
+    cautions: cautionLines(venue, { short: true }),
+    ruler: CARD_RULER_HINT,
+    paper: venueCardPaper(venue),
     qrUrl: opts.publicUrl,
   }
 }

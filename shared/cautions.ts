@@ -27,6 +27,20 @@ export function fixedCautionLines(venue: Pick<CautionVenue, 'legalAge'>): string
   ]
 }
 
+/**
+ * The same five cautions in fewer words, for the flight card, where a page holds six pours: each
+ * line says what its long form says (tests/unit/cautions.test.ts holds them together).
+ */
+export function shortFixedCautionLines(venue: Pick<CautionVenue, 'legalAge'>): string[] {
+  return [
+    `Guests must be ${venue.legalAge} or older, with photo ID.`,
+    'Driving? Please do not drink.',
+    'Pregnant or could be? The safest choice is no alcohol.',
+    'On medicines? Ask your doctor or pharmacist before you taste.',
+    'Hosts serve under local law and their licence, and may pour less or stop serving at any time.',
+  ]
+}
+
 /** The venue's own lines, trimmed, blanks and repeats of the fixed block dropped. */
 function venueCautionLines(venue: CautionVenue): string[] {
   const fixed = new Set(fixedCautionLines(venue).map(l => l.toLowerCase()))
@@ -34,6 +48,6 @@ function venueCautionLines(venue: CautionVenue): string[] {
 }
 
 /** Every caution line: the standard drinks of what is poured (when known), the fixed block, then the venue's lines. */
-export function cautionLines(venue: CautionVenue, opts: CautionOptions = {}): string[] {
-  return [...(opts.standardDrinksLine ? [opts.standardDrinksLine] : []), ...fixedCautionLines(venue), ...venueCautionLines(venue)]
+export function cautionLines(venue: CautionVenue, opts: CautionOptions & { short?: boolean } = {}): string[] {
+  return [...(opts.standardDrinksLine ? [opts.standardDrinksLine] : []), ...(opts.short ? shortFixedCautionLines(venue) : fixedCautionLines(venue)), ...venueCautionLines(venue)]
 }

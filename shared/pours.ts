@@ -51,14 +51,14 @@ export function temperatureFigure(c: number, unit: TemperatureUnit): string {
   return String(Math.round(unit === 'f' ? celsiusToFahrenheit(c) : c))
 }
 
-/** "2.0 fl oz", "60 mL". */
+/** "2.0 fl oz", "60 mL", with no-break spaces: a figure and its unit never part at a line's end. */
 export function formatVolume(ml: number, unit: VolumeUnit): string {
-  return `${volumeFigure(ml, unit)} ${unit === 'floz' ? 'fl oz' : 'mL'}`
+  return `${volumeFigure(ml, unit)}\u00a0${unit === 'floz' ? 'fl\u00a0oz' : 'mL'}`
 }
 
-/** "46 °F", "8 °C". */
+/** "46 °F", "8 °C", with a no-break space. */
 export function formatTemperature(c: number, unit: TemperatureUnit): string {
-  return `${temperatureFigure(c, unit)} ${unit === 'f' ? '°F' : '°C'}`
+  return `${temperatureFigure(c, unit)}\u00a0${unit === 'f' ? '°F' : '°C'}`
 }
 
 /** What a typed figure in the venue's unit stands for, in mL and °C. */

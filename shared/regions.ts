@@ -17,6 +17,33 @@ export type VenueLocale = keyof typeof VENUE_LOCALES
 export const VENUE_LOCALE_CODES = Object.keys(VENUE_LOCALES) as [VenueLocale, ...VenueLocale[]]
 
 let currencies: Set<string> | undefined
+let countries: { code: string, name: string }[] | undefined
+
+/** Codes the platform names but that are not countries (the EU, the UN, "unknown region"). */
+const NOT_COUNTRIES = new Set(['EU', 'EZ', 'UN', 'QO', 'ZZ', 'XA', 'XB'])
+
+/**
+ * ISO 3166-1 alpha-2 countries and territories with their English names, as the platform knows
+ * them (ECMA-402 Intl.DisplayNames), sorted by name.
+ */
+export function countryOptions(): { code: string, name: string }[] {
+  if (countries) return countries
+  const names = new Intl.DisplayNames(['en'], { type: 'region', fallback: 'none' })
+  const out: { code: string, name: string }[] = []
+  for (let a = 65; a <= 90; a++) {
+    for (let b = 65; b <= 90; b++) {
+      const code = String.fromCharCode(a, b)
+      const name = NOT_COUNTRIES.has(code) ? undefined : names.of(code)
+      if (name && name !== code) out.push({ code, name })
+    }
+  }
+  countries = out.sort((x, y) => x.name.localeCompare(y.name, 'en'))
+  return countries
+}
+
+export function isKnownCountry(code: string): boolean {
+  return countryOptions().some(c => c.code === code)
+}
 let zones: Set<string> | undefined
 
 /** ISO 4217 codes of the currencies in use, as the platform knows them ("EUR", "USD", …). */

@@ -1,31 +1,44 @@
 /**
  * Flight cards as PDF, made with pdfkit and the Lora font shipped with the app (embedded from its
- * .woff files; nothing is fetched at run time). A card of up to six pours, with the flight's
- * introduction and each pour's tasting note, fits one A5 or half-letter page: when the text runs
- * long the card walks CARD_FIT_STEPS (shared/cards.ts: slightly smaller type, then run-on lists)
- * before anything flows onto a second page. Notes keep their Markdown structure (shared/markdown.ts blocks, laid out by
- * pdfText.ts). Pure: fonts come in as bytes.
+ * .woff files; nothing is fetched at run time). One card is one page of A5 or US half letter:
+ *
+ *   the venue, the flight, whom it was poured for and when; the flight's introduction;
+ *   a row of the flight's glasses, each drawn to scale with its band marked (32 mm tall);
+ *   the pours in two columns — what it is, what sets it apart in this flight, what to watch for, the note;
+ *   the flight's standard drinks, the room, why tears form, the cautions and the QR code to the pour pages;
+ *   along the right edge, a millimetre scale to hold against the glass.
+ *
+ * No text is set below CARD_TYPE_PT (9 pt to read, 8.5 pt for notes and fine print). When a card
+ * runs long it walks CARD_FIT_STEPS (run-on lists, closer lines, the "why" left to the pour pages)
+ * before anything flows onto a second page. All text goes through pdfText.ts, which breaks lines
+ * only at spaces, so "4.7–6.2 mm/s" never splits. Pure: fonts come in as bytes.
  */
 import PDFDocument from 'pdfkit'
 import QRCode from 'qrcode'
-import { glassDiagramGeometry } from '../../shared/glassDiagram'
-import { CARD_FIT_STEPS, CARD_MARGIN_PT, type CardFit } from '../../shared/cards'
+import { CARD_FIT_STEPS, CARD_GLASS_MM, CARD_MARGIN_PT, CARD_TYPE_PT, type CardFit } from '../../shared/cards'
 import { CARD_PAPER_POINTS, type CardPaper } from '../../shared/paper'
 import type { FlightCard } from '../../shared/types/cards'
-import type { TextBlock } from '../../shared/types/content'
-import { FACES, drawRich, layoutRich } from './pdfText'
+import type { TextBlock, TextRun } from '../../shared/types/content'
+import { FACES, drawRich, layoutRich, type RichLayout } from './pdfText'
+import { drawCardGlass, cardGlassWidth } from './cardGlass'
+import { cardAllergens, cardFacts, leadSplit } from '../../shared/cardText'
 
 export interface CardFonts { regular: Buffer, semibold: Buffer, italic: Buffer, semiboldItalic: Buffer }
 
 const INK = '#1e2326'
-const SOFT = '#4a5459'
-const FAINT = '#7b868c'
+const SOFT = '#3d464b'
 const AMBER = '#c98a2b'
 const LAGOON = '#25665f'
+const RULE = '#d9d2c5'
 const MARGIN = CARD_MARGIN_PT
-const GLASS_COL = 34
-const QR = 54
-const GAP = 5
+const T = CARD_TYPE_PT
+const MM = 72 / 25.4
+/** The band along the right edge that holds the millimetre scale, points. */
+const RULER_BAND = 18
+const QR = 50
+const COLUMN_GAP = 10
+const POUR_GAP = 6
+const GLASS_GAP = 6
 
 export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPaper, fonts: CardFonts, title?: string, onCard?: (done: number, total: number) => void }): Promise<Buffer> {
   const { width, height } = CARD_PAPER_POINTS[opts.paper]
@@ -43,7 +56,7 @@ export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPap
     const card = cards[i]!
     let qr = qrCache.get(card.qrUrl)
     if (!qr) {
-      qr = await QRCode.toBuffer(card.qrUrl, { margin: 1, width: 160, errorCorrectionLevel: 'M' })
+      qr = await QRCode.toBuffer(card.qrUrl, { margin: 1, width: 200, errorCorrectionLevel: 'M' })
       qrCache.set(card.qrUrl, qr)
     }
     drawCard(doc, card, qr, width, height)
@@ -56,185 +69,283 @@ export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPap
 
 type Pour = FlightCard['pours'][number]
 
-/** A piece of the card: plain text in one font (pdfkit wraps it), or a note's blocks (pdfText.ts). */
-type Line = { font: string, size: number, color: string, text: string, gap: number, spacing?: number }
-  | { blocks: TextBlock[], size: number, color: string, gap: number, compact: boolean, rule?: true }
+/** One piece of text: blocks of runs in one size and colour (pdfText.ts lays it out). */
+interface Piece { blocks: TextBlock[], size: number, color: string, gap: number, rule?: true }
 
-/** A note's look: ink, not the soft grey of the fine print, a touch larger than the pour's lines. */
-const note = (blocks: TextBlock[], fit: CardFit): Line => ({ blocks, size: 7.2 * fit.scale, color: INK, gap: 2.5 * fit.scale, compact: fit.compactLists, rule: true })
+const para = (runs: TextRun[]): TextBlock[] => [{ kind: 'paragraph', depth: 0, runs }]
+const plain = (text: string, extra: Partial<TextRun> = {}): TextBlock[] => para([{ text, ...extra }])
 
-/**
- * Each piece of text with its font and size, in drawing order, so that measuring a block and
- * drawing it cannot disagree.
- */
-function pourLines(pour: Pour, fit: CardFit): Line[] {
-  const k = fit.scale
-  const detail = [pour.kind, pour.vintageOrBatch, pour.abvText, `${pour.volumeText} at ${pour.servedAtText}`,
-    `${pour.ethanolGrams.toFixed(1)} g ethanol = ${pour.standardDrinks.toFixed(2)} standard drinks`].filter(Boolean).join(' · ')
-  // The allergens close the facts line, in bold, rather than taking a line of their own.
-  const facts: TextBlock = { kind: 'paragraph', depth: 0, runs: [{ text: detail }, ...(pour.allergens.length ? [{ text: ' · ' }, { text: `Contains ${pour.allergens.join(', ')}.`, bold: true as const }] : [])] }
+/** A contrast sentence with its lead in semibold (shared/cardText.ts). */
+function leadRuns(text: string): TextRun[] {
+  const { lead, rest } = leadSplit(text)
+  return lead ? [{ text: lead, bold: true }, { text: rest }] : [{ text: rest }]
+}
+
+function pourPieces(card: FlightCard, pour: Pour): Piece[] {
+  const factRuns: TextRun[] = [{ text: cardFacts(card, pour) }]
   return [
-    { blocks: [facts], size: 6.6 * k, color: SOFT, gap: 0.5, compact: false },
-    { font: FACES.regular, size: 6.7 * k, color: INK, text: pour.lookFor.join(' '), gap: 1.5 * k },
-    ...(pour.tastingNote?.blocks.length ? [note(pour.tastingNote.blocks, fit)] : []),
+    // One paragraph: "3  Tidewater Albariño · 2024 · 12.5 % ABV · 2.0 fl oz at 50 °F. Second-highest band…".
+    { blocks: para([{ text: `${pour.position}\u00a0\u00a0${pour.name}`, bold: true }, { text: ' · ' }, ...factRuns, ...(pour.contrast ? [{ text: '. ' }, ...leadRuns(pour.contrast)] : [{ text: '.' }])]), size: T.body, color: INK, gap: 0 },
+    ...(pour.tastingNote?.blocks.length ? [{ blocks: pour.tastingNote.blocks, size: T.note, color: INK, gap: 3, rule: true as const }] : []),
   ]
 }
 
-function headerLines(card: FlightCard, fit: CardFit): Line[] {
-  const k = fit.scale
+/** The header's title lines, beside the QR code, and then the flight's introduction below both. */
+function headPieces(card: FlightCard): Piece[] {
   const sub = [card.guestName ? `Poured for ${card.guestName}` : null, card.sessionLabel].filter(Boolean).join(' · ')
   return [
-    { font: FACES.regular, size: 7.5, color: LAGOON, text: card.venue.name.toUpperCase(), gap: 0, spacing: 0.8 },
-    { font: FACES.bold, size: 15, color: INK, text: card.flight.name, gap: 1 },
-    ...(sub ? [{ font: FACES.italic, size: 8.5, color: SOFT, text: sub, gap: 1 }] : []),
-    ...(card.flight.summary ? [{ font: FACES.regular, size: 7.5 * k, color: SOFT, text: card.flight.summary, gap: 1 }] : []),
-    ...(card.intro?.blocks.length ? [{ blocks: card.intro.blocks, size: 7.6 * k, color: INK, gap: 3 * k, compact: fit.compactLists }] : []),
+    { blocks: plain(card.venue.name.toUpperCase()), size: T.venue, color: LAGOON, gap: 0 },
+    { blocks: plain(card.flight.name, { bold: true }), size: T.title, color: INK, gap: 1 },
+    ...(sub ? [{ blocks: plain(sub, { italic: true }), size: T.sub, color: SOFT, gap: 1 }] : []),
+    // Marketing's introduction says more than the manager's one-line summary: the card prints one of them.
   ]
 }
 
-function footLines(card: FlightCard): Line[] {
-  return [
-    { font: FACES.bold, size: 8.5, color: INK, text: `This flight: ${card.totals.standardDrinks.toFixed(1)} standard drinks — ${card.totals.ethanolGrams.toFixed(1)} g of ethanol in ${card.totals.volumeText} (${card.totals.definition}).`, gap: 0 },
-    // The air the figures above assume: the host's reading for the session, or the venue's usual room.
-    { font: FACES.regular, size: 6.5, color: INK, text: card.room.text, gap: 1.5 },
-    { font: FACES.regular, size: 6.5, color: SOFT, text: card.why, gap: 3 },
-    { font: FACES.italic, size: 6.5, color: SOFT, text: card.quality, gap: 1.5 },
-    { font: FACES.regular, size: 6.5, color: INK, text: card.cautions.join(' '), gap: 3 },
-  ]
+function introPieces(card: FlightCard): Piece[] {
+  return card.intro?.blocks.length
+    ? [{ blocks: card.intro.blocks, size: T.body, color: INK, gap: 3 }]
+    : card.flight.summary ? [{ blocks: plain(card.flight.summary), size: T.body, color: SOFT, gap: 3 }] : []
 }
-
-/** A note's indent: the rule beside it, and the list markers. */
-const NOTE_INSET = 5
-const richStyle = (l: Extract<Line, { blocks: TextBlock[] }>) => ({ size: l.size, leading: LEADING, color: l.color, linkColor: LAGOON, blockGap: l.size * 0.25, indent: l.size * 1.3, compactLists: l.compact })
-const richLayout = (doc: PDFKit.PDFDocument, l: Extract<Line, { blocks: TextBlock[] }>, width: number) => layoutRich(doc, l.blocks, width - (l.rule ? NOTE_INSET : 0), richStyle(l))
 
 /**
- * Line spacing of the card's text, × the type size: tighter than Lora's own 1.28 (its ascent plus
- * descent), which is made for screens and long reading; a card is a few lines at a time.
+ * What follows the pours, in the same two columns: the flight's standard drinks, its allergens, the
+ * room the figures assume, why tears form, that they say nothing of quality, and the cautions — each
+ * a group of its own, so that the columns can balance.
  */
-const LEADING = 1.17
-const plainOptions = (doc: PDFKit.PDFDocument, l: Extract<Line, { text: string }>, width: number) =>
-  ({ width, characterSpacing: l.spacing, lineGap: LEADING * l.size - doc.font(l.font).fontSize(l.size).currentLineHeight(true) })
-
-function measure(doc: PDFKit.PDFDocument, lines: Line[], width: number): number {
-  return lines.reduce((h, l) => h + l.gap + ('blocks' in l
-    ? richLayout(doc, l, width).height
-    : doc.font(l.font).fontSize(l.size).heightOfString(l.text, plainOptions(doc, l, width))), 0)
+function footGroups(card: FlightCard, fit: CardFit): Piece[][] {
+  const al = cardAllergens(card)
+  return [
+    [{ blocks: plain(`This flight: ${card.totals.standardDrinks.toFixed(1)} standard drinks, ${card.totals.ethanolGrams.toFixed(1)}\u00a0g of ethanol in ${card.totals.volumeText} (${card.totals.definition}).`, { bold: true }), size: T.body, color: INK, gap: 0 }],
+    ...(al ? [[{ blocks: plain(al, { bold: true }), size: T.body, color: INK, gap: 0 }]] : []),
+    // The air the figures assume: the host's reading for the session, or the venue's usual room.
+    [{ blocks: plain(`${card.room.text}.`), size: T.body, color: INK, gap: 0 }],
+    ...(fit.why ? [[{ blocks: plain(card.why), size: T.fine, color: SOFT, gap: 0 }]] : []),
+    [{ blocks: plain(card.quality, { italic: true }), size: T.fine, color: SOFT, gap: 0 }],
+    ...card.cautions.map(line => [{ blocks: plain(line), size: T.fine, color: INK, gap: 0 }]),
+  ]
 }
 
-function draw(doc: PDFKit.PDFDocument, lines: Line[], x: number, y: number, width: number): number {
-  for (const l of lines) {
-    y += l.gap
-    if ('blocks' in l) {
-      const laid = richLayout(doc, l, width)
-      const inset = l.rule ? NOTE_INSET : 0
-      if (l.rule) doc.moveTo(x + 0.6, y + 1).lineTo(x + 0.6, y + laid.height - 1).lineWidth(1.2).strokeColor(AMBER).stroke()
-      drawRich(doc, laid, x + inset, y)
-      y += laid.height
-    }
-    else {
-      doc.font(l.font).fontSize(l.size).fillColor(l.color).text(l.text, x, y, plainOptions(doc, l, width))
-      y = doc.y
-    }
+/** A note's indent: the amber rule beside it. */
+const NOTE_INSET = 6
+
+function layout(doc: PDFKit.PDFDocument, piece: Piece, width: number, fit: CardFit): RichLayout {
+  return layoutRich(doc, piece.blocks, width - (piece.rule ? NOTE_INSET : 0), {
+    size: piece.size, leading: fit.leading, color: piece.color, linkColor: LAGOON, blockGap: piece.size * 0.3,
+    indent: piece.size * 1.3, compactLists: fit.compactLists,
+  })
+}
+
+function measure(doc: PDFKit.PDFDocument, pieces: Piece[], width: number, fit: CardFit): number {
+  return pieces.reduce((h, p) => h + p.gap + layout(doc, p, width, fit).height, 0)
+}
+
+function draw(doc: PDFKit.PDFDocument, pieces: Piece[], x: number, y: number, width: number, fit: CardFit): number {
+  for (const p of pieces) {
+    y += p.gap
+    const laid = layout(doc, p, width, fit)
+    if (p.rule) doc.moveTo(x + 0.7, y + 1).lineTo(x + 0.7, y + laid.height - 1).lineWidth(1.4).strokeColor(AMBER).stroke()
+    drawRich(doc, laid, x + (p.rule ? NOTE_INSET : 0), y)
+    y += laid.height
   }
   return y
 }
 
-const TITLE_H = 12
-/** Space under the header's text, then the rule, then space above the first pour. */
-const HEADER_RULE = 5
-const HEADER_AFTER = 7
+/** Where everything goes on one page of a given size. */
+interface Frame { left: number, textW: number, colW: number, bottom: number, headW: number }
 
-interface Geometry { inner: number, textX: number, textW: number, footW: number, footH: number }
-
-function blockHeight(doc: PDFKit.PDFDocument, pour: Pour, g: Geometry, fit: CardFit): number {
-  return Math.max(TITLE_H + measure(doc, pourLines(pour, fit), g.textW), GLASS_COL * 1.05)
+function frameOf(width: number, height: number): Frame {
+  const textW = width - 2 * MARGIN - RULER_BAND
+  return { left: MARGIN, textW, colW: (textW - COLUMN_GAP) / 2, bottom: height - MARGIN, headW: textW - QR - 10 }
 }
 
-/** The first step of CARD_FIT_STEPS at which the whole card fits its page (else the last one). */
-function fitCard(doc: PDFKit.PDFDocument, card: FlightCard, g: Geometry, height: number): CardFit {
-  const steps = CARD_FIT_STEPS
-  return steps.find((fit) => {
-    const total = MARGIN + measure(doc, headerLines(card, fit), g.inner) + HEADER_RULE + HEADER_AFTER
-      + card.pours.reduce((h, p) => h + blockHeight(doc, p, g, fit) + GAP, 0)
-    return total <= height - MARGIN - g.footH
-  }) ?? steps.at(-1)!
+const HEAD_RULE_GAP = 6
+const GLASS_ROW = CARD_GLASS_MM * MM
+/** The table under the glasses, one row per figure (the count of tears around the glass is on the pour pages and in the drawing). */
+const FIGURE_ROWS: { key: keyof FlightCard['pours'][number]['figures'] | 'drinks', label: string }[] = [
+  { key: 'band', label: 'band, mm' },
+  { key: 'onset', label: 'tears after, s' },
+  { key: 'speed', label: 'sliding, mm/s' },
+  { key: 'drinks', label: 'standard drinks' },
+]
+const TABLE_LINE = T.fine * 1.14
+const TABLE_LABEL_W = 66
+/** Pours per row of glasses; a longer flight takes two rows. */
+const GLASSES_PER_ROW = 6
+const tableHeight = (n: number) => Math.ceil(n / GLASSES_PER_ROW) * (GLASS_ROW + 2 + TABLE_LINE * FIGURE_ROWS.length) + GLASS_GAP
+
+/**
+ * Where a sequence of blocks splits into two columns so that the taller column is as short as it
+ * can be (order kept): the index of the first block of the second column.
+ */
+function columns(heights: number[]): number {
+  const total = heights.reduce((a, b) => a + b, 0)
+  let best = heights.length
+  let bestTall = total
+  let left = 0
+  for (let i = 0; i <= heights.length; i++) {
+    const tall = Math.max(left, total - left)
+    if (tall < bestTall) {
+      bestTall = tall
+      best = i
+    }
+    left += heights[i] ?? 0
+  }
+  return best
+}
+
+/** A block of the two columns: a pour's pieces or one group of the foot, and the space after it. */
+interface Block { pieces: Piece[], after: number, rule?: true }
+
+function blocksOf(card: FlightCard, fit: CardFit): Block[] {
+  const foot = footGroups(card, fit)
+  return [
+    ...card.pours.map(p => ({ pieces: pourPieces(card, p), after: POUR_GAP })),
+    ...foot.map((pieces, i) => ({ pieces, after: 2, ...(i === 0 ? { rule: true as const } : {}) })),
+  ]
+}
+
+/** Space above the first block of the foot: a thin rule across the column. */
+const FOOT_RULE = 8
+
+const blockHeight = (doc: PDFKit.PDFDocument, b: Block, f: Frame, fit: CardFit) => measure(doc, b.pieces, f.colW, fit) + b.after + (b.rule ? FOOT_RULE : 0)
+
+interface Plan { fit: CardFit, headH: number, split: number, colH: number, fits: boolean }
+
+function plan(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, height: number, fit: CardFit): Plan {
+  const headH = headHeight(doc, card, f, fit) + HEAD_RULE_GAP * 2
+  const heights = blocksOf(card, fit).map(b => blockHeight(doc, b, f, fit))
+  const split = columns(heights)
+  const colH = Math.max(heights.slice(0, split).reduce((a, b) => a + b, 0), heights.slice(split).reduce((a, b) => a + b, 0))
+  return { fit, headH, split, colH, fits: MARGIN + headH + tableHeight(card.pours.length) + colH <= height - MARGIN }
 }
 
 function drawCard(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, width: number, height: number) {
-  const inner = width - 2 * MARGIN
-  const footW = inner - QR - 10
-  const g: Geometry = { inner, textX: MARGIN + GLASS_COL + 8, textW: inner - GLASS_COL - 8, footW, footH: Math.max(measure(doc, footLines(card), footW), QR + 10) + 10 }
-  const { textX, textW, footH } = g
-  const fit = fitCard(doc, card, g, height)
+  const f = frameOf(width, height)
+  const plans = CARD_FIT_STEPS.map(fit => plan(doc, card, f, height, fit))
+  const p = plans.find(x => x.fits) ?? plans.at(-1)!
+  if (process.env.CARD_DEBUG) console.error(blocksOf(card, p.fit).map(b => Math.round(blockHeight(doc, b, f, p.fit))).join(" "), p.split)
+  if (process.env.CARD_DEBUG) console.error(plans.map(x => [x.headH, tableHeight(card.pours.length), x.colH, MARGIN + x.headH + tableHeight(card.pours.length) + x.colH - (height - MARGIN)].map(Math.round).join(' ')))
+  const fit = p.fit
   doc.addPage()
-  let y = header(doc, card, inner, fit)
+  ruler(doc, card, width, height, fit)
 
-  for (const pour of card.pours) {
-    const lines = pourLines(pour, fit)
-    const blockH = blockHeight(doc, pour, g, fit)
-    if (y + blockH > height - MARGIN - footH && y + blockH > height - MARGIN) {
-      doc.addPage()
-      y = MARGIN
+  draw(doc, headPieces(card), f.left, MARGIN, f.headW, fit)
+  qrCode(doc, qr, f)
+  const head = headLayout(doc, card, f, fit)
+  draw(doc, introPieces(card), f.left, head.top, head.width, fit)
+  let y = head.bottom + HEAD_RULE_GAP
+  hrule(doc, f, y, f.left, f.textW)
+  y += HEAD_RULE_GAP
+  y = glassTable(doc, card, f, y)
+
+  // Two columns; a card too long for one page goes on with the rest on the next.
+  const blocks = blocksOf(card, fit)
+  const top = y
+  ;[blocks.slice(0, p.split), blocks.slice(p.split)].forEach((col, c) => {
+    let cy = top
+    const x = f.left + c * (f.colW + COLUMN_GAP)
+    for (const b of col) {
+      const h = blockHeight(doc, b, f, fit)
+      if (cy + h > f.bottom + 0.5 && cy > MARGIN + 1) {
+        doc.addPage()
+        ruler(doc, card, width, height, fit)
+        cy = MARGIN
+      }
+      if (b.rule) {
+        hrule(doc, f, cy + FOOT_RULE / 2 - 1, x, f.colW)
+        cy += FOOT_RULE
+      }
+      cy = draw(doc, b.pieces, x, cy, f.colW, fit) + b.after
     }
-    else if (y + blockH > height - MARGIN - footH) {
-      // It fits on the page but not above the foot: keep it, and the foot goes on the next page.
-    }
-    drawGlass(doc, pour, MARGIN, y, GLASS_COL)
-    doc.font(FACES.bold).fontSize(10).fillColor(INK).text(`${pour.position}  ${pour.name}`, textX, y, { width: textW - 84, lineBreak: false, ellipsis: true, continued: true })
-      .font(FACES.regular).fontSize(6.8).fillColor(SOFT).text(`   ${pour.producer}`, { lineBreak: false, ellipsis: true })
-    meter(doc, pour.filmActivityIndex, textX + textW - 76, y + 1)
-    const end = draw(doc, lines, textX, y + TITLE_H, textW)
-    y = Math.max(end, y + GLASS_COL * 1.05) + GAP
+  })
+}
+
+function hrule(doc: PDFKit.PDFDocument, f: Frame, y: number, x: number, w: number) {
+  doc.moveTo(x, y).lineTo(x + w, y).lineWidth(0.6).strokeColor(RULE).stroke()
+}
+
+/**
+ * The flight's glasses side by side, each CARD_GLASS_MM tall and drawn to its own scale (the
+ * wall of the glass with its band and tears), and under each its number and predicted figures, so
+ * that the pours compare across one table. The rows' names, with their units, stand at the left.
+ */
+function glassTable(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, top: number): number {
+  let y = top
+  for (let start = 0; start < card.pours.length; start += GLASSES_PER_ROW) {
+    const row = card.pours.slice(start, start + GLASSES_PER_ROW)
+    const slot = (f.textW - TABLE_LABEL_W) / Math.max(row.length, Math.min(card.pours.length, GLASSES_PER_ROW))
+    const rows = y + GLASS_ROW + 2
+    doc.font(FACES.regular).fontSize(T.fine).fillColor(SOFT)
+    FIGURE_ROWS.forEach((r, i) => doc.text(r.label, f.left, rows + TABLE_LINE * i, { width: TABLE_LABEL_W, lineBreak: false }))
+    row.forEach((pour, i) => {
+      const x = f.left + TABLE_LABEL_W + i * slot
+      const w = Math.min(slot - 4, cardGlassWidth(pour, GLASS_ROW))
+      drawCardGlass(doc, pour, x + (slot - w) / 2, y, w, GLASS_ROW)
+      // The pour's number at the top left of its glass.
+      doc.font(FACES.bold).fontSize(T.body).fillColor(INK).text(String(pour.position), x + 2, y, { width: 14, lineBreak: false })
+      FIGURE_ROWS.forEach((r, j) => {
+        const text = r.key === 'drinks' ? pour.standardDrinks.toFixed(2) : pour.figures[r.key]
+        doc.font(FACES.regular).fontSize(T.fine).fillColor(INK).text(text, x, rows + TABLE_LINE * j, { width: slot, align: 'center', lineBreak: false })
+      })
+    })
+    y = rows + TABLE_LINE * FIGURE_ROWS.length
   }
-
-  if (y > height - MARGIN - footH) {
-    doc.addPage()
-    y = MARGIN
-  }
-  foot(doc, card, qr, inner, footW, Math.max(y, height - MARGIN - footH))
+  return y + GLASS_GAP
 }
 
-/** "film activity 8.3" and a 0–10 bar, at the right of a pour's title. */
-function meter(doc: PDFKit.PDFDocument, value: number, x: number, y: number) {
-  doc.font(FACES.regular).fontSize(6.5).fillColor(SOFT).text(`film activity ${value.toFixed(1)}`, x - 6, y + 1, { width: 56, align: 'right', lineBreak: false })
-  doc.roundedRect(x + 53, y + 3.2, 23, 2.6, 1.3).fill('#fbefd9')
-  doc.roundedRect(x + 53, y + 3.2, Math.max(1, 2.3 * Math.min(10, value)), 2.6, 1.3).fill(AMBER)
+/** Top of the page down to the end of the QR code's caption. */
+const QR_BLOCK = MARGIN + QR + CARD_TYPE_PT.fine * 1.3 + 2
+
+/**
+ * Where the introduction goes: beside the QR code under the title, or below both at the full
+ * width, whichever ends higher. Returns its top, its width and the header's bottom.
+ */
+function headLayout(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, fit: CardFit) {
+  const titleEnd = MARGIN + measure(doc, headPieces(card), f.headW, fit)
+  const intro = introPieces(card)
+  const beside = Math.max(titleEnd + measure(doc, intro, f.headW, fit), QR_BLOCK)
+  const below = Math.max(titleEnd, QR_BLOCK) + measure(doc, intro, f.textW, fit)
+  return beside <= below ? { top: titleEnd, width: f.headW, bottom: beside } : { top: Math.max(titleEnd, QR_BLOCK), width: f.textW, bottom: below }
 }
 
-function header(doc: PDFKit.PDFDocument, card: FlightCard, inner: number, fit: CardFit): number {
-  const y = draw(doc, headerLines(card, fit), MARGIN, MARGIN, inner) + HEADER_RULE
-  doc.moveTo(MARGIN, y).lineTo(MARGIN + inner, y).lineWidth(0.5).strokeColor('#e3ddd2').stroke()
-  return y + HEADER_AFTER
+function headHeight(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, fit: CardFit): number {
+  return headLayout(doc, card, f, fit).bottom - MARGIN
 }
 
-function foot(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, inner: number, footW: number, top: number) {
-  doc.moveTo(MARGIN, top).lineTo(MARGIN + inner, top).lineWidth(0.5).strokeColor('#e3ddd2').stroke()
-  draw(doc, footLines(card), MARGIN, top + 6, footW)
-  doc.image(qr, MARGIN + inner - QR, top + 6, { width: QR, height: QR })
-  doc.font(FACES.regular).fontSize(5.5).fillColor(FAINT).text('Scan: the glass explained', MARGIN + inner - QR - 8, top + 7 + QR, { width: QR + 16, align: 'center' })
+/** The QR code to the pour pages, at the header's right. */
+function qrCode(doc: PDFKit.PDFDocument, qr: Buffer, f: Frame) {
+  const qx = f.left + f.textW - QR
+  doc.image(qr, qx, MARGIN, { width: QR, height: QR })
+  doc.font(FACES.regular).fontSize(T.fine).fillColor(SOFT).text('Scan for more', qx - 14, MARGIN + QR + 1, { width: QR + 28, align: 'center', lineBreak: false })
 }
 
-/** The same glass diagram as the web pages, drawn as vectors at `size` points wide. */
-function drawGlass(doc: PDFKit.PDFDocument, pour: FlightCard['pours'][number], x: number, y: number, size: number) {
-  const g = glassDiagramGeometry(pour.glass, pour.prediction)
-  const [, , vw, vh] = g.viewBox.split(' ').map(Number) as [number, number, number, number]
-  const scale = Math.min(size / vw, (size * 1.1) / vh)
+/** Length of the printed scale, mm: taller than any band the glass model predicts (it caps them at 60 mm). */
+const RULER_MM = 80
+
+/**
+ * A millimetre scale along the card's right edge: a tick every millimetre, longer every 5 and
+ * numbered every 10, with 0 at the bottom for the liquid's surface. At 1 mm = 72/25.4 pt it reads
+ * true when the card is printed at actual size.
+ */
+function ruler(doc: PDFKit.PDFDocument, card: FlightCard, width: number, height: number, fit: CardFit) {
+  // 13 pt (4.6 mm) from the paper's edge: inside what office printers print.
+  const edge = width - 13
+  const zero = height - MARGIN - 20
+  const top = zero - RULER_MM * MM
   doc.save()
-  doc.translate(x, y).scale(scale)
-  doc.path(g.liquidPath).fillOpacity(0.45).fill(AMBER)
-  if (g.swirl) {
-    doc.path(g.swirl.curtainLeft).fillOpacity(0.3).fill('#e0a54a')
-    doc.path(g.swirl.curtainRight).fillOpacity(0.3).fill('#e0a54a')
+  doc.moveTo(edge, zero + 0.4).lineTo(edge, top - 0.4).lineWidth(0.8).strokeColor(INK).stroke()
+  for (let mm = 0; mm <= RULER_MM; mm++) {
+    const yy = zero - mm * MM
+    const len = mm % 10 === 0 ? 10 : mm % 5 === 0 ? 6 : 3.5
+    doc.moveTo(edge - len, yy).lineTo(edge, yy).lineWidth(mm % 10 === 0 ? 0.8 : 0.45).strokeColor(INK).stroke()
+    // Each number sits just above its tick, clear of the shorter ticks at the edge.
+    if (mm % 10 === 0) doc.font(FACES.regular).fontSize(T.fine).fillColor(INK).text(String(mm), edge - 27, yy - T.fine * 1.2, { width: 20, align: 'right', lineBreak: false })
   }
-  for (const ring of g.rings) doc.moveTo(ring.x1, ring.y).lineTo(ring.x2, ring.y).lineWidth(g.stroke * 1.6).strokeOpacity(1).strokeColor('#cdb88f').stroke()
-  if (g.band) {
-    doc.path(g.band.left).fillOpacity(0.75).fill('#e0a54a')
-    doc.path(g.band.right).fillOpacity(0.75).fill('#e0a54a')
-  }
-  doc.fillOpacity(0.85)
-  for (const t of g.tears) doc.ellipse(t.x, t.y, t.rx, t.ry).fill('#8a5a12')
-  doc.fillOpacity(1)
-  doc.path(g.outline).lineWidth(g.stroke).strokeColor(SOFT).stroke()
+  doc.font(FACES.bold).fontSize(T.fine).fillColor(INK).text('scale, mm', edge - 50, top - T.fine * 1.9, { width: 50, align: 'right', lineBreak: false })
+  // How to use it, read up the edge above the scale.
+  const along = top - T.fine * 2.6 - (QR_BLOCK + 6)
+  const hint = layout(doc, { blocks: plain(card.ruler), size: T.fine, color: INK, gap: 0 }, along, fit)
+  doc.translate(edge - hint.height - 1, top - T.fine * 2.6).rotate(-90)
+  drawRich(doc, hint, 0, 0)
   doc.restore()
 }

@@ -4,6 +4,7 @@
  * measuring and the drawing, and the two cannot disagree.
  */
 import type { TextBlock, TextRun } from '../../shared/types/content'
+import { bindUnits } from '../../shared/cardText'
 
 /** The four faces of Lora the cards embed, by the names renderCardsPdf registers them under. */
 export const FACES = { regular: 'Lora', bold: 'Lora-SemiBold', italic: 'Lora-Italic', boldItalic: 'Lora-SemiBoldItalic' } as const
@@ -119,7 +120,7 @@ export function drawRich(doc: PDFKit.PDFDocument, layout: RichLayout, x: number,
 function splitLines(runs: TextRun[]): TextRun[][] {
   const lines: TextRun[][] = [[]]
   for (const r of runs) {
-    r.text.split('\n').forEach((text, i) => {
+    bindUnits(r.text).split('\n').forEach((text, i) => {
       if (i > 0) lines.push([])
       if (text) lines.at(-1)!.push({ ...r, text })
     })

@@ -24,7 +24,7 @@ export const DEMO_VENUE = {
   // fixed block the product prints before them (shared/cautions.ts).
   cautions: [
     'Water is on every table: a glass between pours keeps the palate fresh.',
-    'Ask at the bar and we will call you a taxi; the Heron Quay bus stops outside until 10 pm.',
+    'Ask at the bar for a taxi; the Heron Quay bus stops outside until 10 pm.',
   ].join('\n'),
   // 555-01xx numbers are reserved for fiction (North American Numbering Plan); .test is reserved (RFC 2606).
   phone: '+1 207 555 0143',

@@ -1,5 +1,6 @@
 import { WEEKDAYS, type OpeningHours, type OpeningSpan, type Weekday } from '../venue'
-import { VENUE_LOCALE_CODES, canonicalTimeZone, isKnownCurrency } from '../regions'
+import { VENUE_LOCALE_CODES, canonicalTimeZone, isKnownCountry, isKnownCurrency } from '../regions'
+import { CARD_PAPERS } from '../paper'
 import { z } from './zod'
 import { airTempInRange, airTempMessage, humidityField, toTenth } from './room'
 
@@ -89,6 +90,10 @@ export const venueSchema = z.object({
   website: websiteField,
   openingHours: openingHoursField,
   locale: z.enum(VENUE_LOCALE_CODES, { error: 'Choose one of the languages and regions offered.' }),
+  /** Where the venue is (left out: unchanged): chooses the cards' paper unless `cardPaper` is set. */
+  country: z.string({ error: 'Choose a country.' }).trim().toUpperCase().refine(isKnownCountry, { error: 'Choose a country from the list (an ISO 3166 code, like US or PT).' }).optional(),
+  /** The cards' paper; null: the usual paper of the venue's country. */
+  cardPaper: z.enum(CARD_PAPERS, { error: 'Choose A5, US half letter or the country\'s usual paper.' }).nullable().optional(),
   timeZone: z.string({ error: 'Choose a time zone.' }).trim().transform((zone, ctx) => {
     const known = canonicalTimeZone(zone)
     if (known) return known

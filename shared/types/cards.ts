@@ -1,6 +1,14 @@
 import type { GlassShape } from '../glassDiagram'
 import type { RoomAir, TearPrediction } from '../science'
 import type { ImageView, RenderedText } from './content'
+import type { CardPaper } from '../paper'
+
+/**
+ * A pour's predicted figures as the card's table prints them, ranges without units (the rows name
+ * them): band height mm, tears after s, tears around the glass, sliding speed mm/s. A pour without
+ * a band says 'low' (legs from the swirl), 'none' or 'foam'; '—' where a figure does not apply.
+ */
+export interface CardFigures { band: string, onset: string, around: string, speed: string }
 
 /** One pour's lines on a flight card. */
 export interface CardPour {
@@ -17,7 +25,10 @@ export interface CardPour {
   filmActivityIndex: number
   glass: GlassShape
   prediction: TearPrediction
-  lookFor: string[]
+  /** The predicted figures the card's table prints under the pour's glass. */
+  figures: CardFigures
+  /** What sets this pour apart within its flight, with the prediction's range (shared/flightContrast.ts); null for a flight of one. */
+  contrast: string | null
   /** The product's published tasting note: HTML for the print page, blocks for the PDF. */
   tastingNote: RenderedText | null
   allergens: string[]
@@ -55,6 +66,10 @@ export interface FlightCard {
   why: string
   quality: string
   cautions: string[]
+  /** How to read the band off the millimetre scale along the card's edge. */
+  ruler: string
+  /** The paper the venue prints its cards on unless the host picks another (shared/paper.ts). */
+  paper: CardPaper
   qrUrl: string
 }
 

@@ -1,4 +1,5 @@
 import type { OpeningHours } from '../venue'
+import type { CardPaper } from '../paper'
 
 /** The venue's public settings, as GET /api/venue sends them (server/api/venue/index.get.ts). */
 export interface PublicVenue {
@@ -9,6 +10,10 @@ export interface PublicVenue {
   timeZone: string
   /** BCP 47 locale of its dates, times and numbers. */
   locale: string
+  /** ISO 3166-1 alpha-2 country: chooses the cards' paper unless `cardPaper` is set. */
+  country: string
+  /** The cards' paper the manager chose; null: the country's usual one (shared/paper.ts). */
+  cardPaper: CardPaper | null
   /** ISO 4217 code; amounts are integer minor units of it. */
   currency: string
   legalAge: number

@@ -107,11 +107,11 @@ describe('the flight builder', () => {
     expect(await page.getByLabel('Serve at (°F)').inputValue()).toBe('48') // 9 °C = 48.2 °F (°F = °C × 9/5 + 32), whole degrees
     await page.getByLabel('Pour (fl oz)').fill('2.5')
     await page.getByLabel('Pour (fl oz)').press('Tab')
-    await page.getByText('2.5 fl oz').waitFor() // the per-guest total follows the typed figure
+    await page.getByText(/2\.5\sfl\soz/).waitFor() // the per-guest total follows the typed figure
     page.on('dialog', d => void d.accept()) // leaving the unsaved flight is asked about; yes
     await page.goto(`/flights/${id}`)
-    await page.getByText('3.0 fl oz').first().waitFor()
-    expect(await page.getByText('46 °F').count()).toBeGreaterThan(0)
+    await page.getByText(/3\.0\sfl\soz/).first().waitFor()
+    expect(await page.getByText(/46\s°F/).count()).toBeGreaterThan(0)
     expect(warnings).toEqual([])
     await page.close()
   }, 90_000)

@@ -71,7 +71,7 @@ describe('products through the browser, as the manager on a tablet', () => {
     await page.getByRole('heading', { name: 'Brackish Bay Test White' }).waitFor()
     expect(await page.getByLabel('Serving temperature (°F)').inputValue()).toBe('50')
     expect(await page.getByLabel('Cost per bottle (USD)').inputValue()).toBe('13.75')
-    expect(await page.getByText('2.0 fl oz at 50 °F').count()).toBe(1) // 60 mL ≈ 2.0 US fl oz (1 fl oz = 29.5735 mL, US customary definition)
+    expect(await page.getByText(/2\.0\sfl\soz at 50\s°F/).count()).toBe(1) // 60 mL ≈ 2.0 US fl oz (1 fl oz = 29.5735 mL, US customary definition)
     await shot(page, 'products-page')
   })
 
@@ -97,7 +97,7 @@ describe('products through the browser, as the manager on a tablet', () => {
     await page.getByLabel('Cost per bottle (USD)').fill('14.2')
     await page.getByRole('button', { name: 'Save changes' }).click()
     await page.getByText('Saved. The figures on this page').waitFor()
-    await page.getByText('2.0 fl oz at 59 °F').waitFor()
+    await page.getByText(/2\.0\sfl\soz at 59\s°F/).waitFor()
     const id = Number(new URL(page.url()).pathname.split('/').pop())
     const saved = await page.evaluate(async pid => (await fetch(`/api/products/${pid}`)).json(), id)
     expect(saved.servingTempC).toBeCloseTo(15, 9) // 59 °F = 15 °C (°C = (°F − 32) × 5/9, exact)

@@ -46,7 +46,7 @@ describe('card data', () => {
       const grams = p.ml * p.abv / 100 * ETHANOL_G_PER_ML
       expect(c.position).toBe(i + 1)
       expect(c.abvText).toBe(`${p.abv} % ABV`)
-      expect(c.volumeText).toBe(`${(p.ml / 29.5735295625).toFixed(1)} fl oz`) // 1 US fl oz = 29.5735295625 mL (exact, US customary units)
+      expect(c.volumeText).toBe(`${(p.ml / 29.5735295625).toFixed(1)}\u00a0fl\u00a0oz`) // 1 US fl oz = 29.5735295625 mL (exact, US customary units)
       expect(c.ethanolGrams).toBeCloseTo(grams, 1)
       expect(c.standardDrinks).toBeCloseTo(grams / 14, 2) // NIAAA: one US standard drink = 14 g of ethanol
       expect(c.lookFor.length).toBeGreaterThan(0)
@@ -54,7 +54,7 @@ describe('card data', () => {
     })
     expect(card.totals.standardDrinks).toBeCloseTo(INVENTED.reduce((s, p) => s + p.ml * p.abv / 100 * ETHANOL_G_PER_ML, 0) / 14, 1)
     expect(card.quality).toMatch(/nothing about quality/)
-    expect(card.cautions.join(' ')).toMatch(/If you are driving, please do not drink/) // the fixed block (shared/cautions.ts) is on every card
+    expect(card.cautions.join(' ')).toMatch(/Driving\? Please do not drink/) // the fixed block (shared/cautions.ts, in its short form) is on every card
     expect(card.qrUrl).toBe(`${inject('appUrl')}/pour/${flightId}`)
     // The sweet tawny's text explains its slower tears by its sugar.
     expect(card.pours[4].lookFor.join(' ')).toMatch(/110\sg\/L of sugar/)

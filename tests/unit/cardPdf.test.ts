@@ -6,7 +6,7 @@ import { buildFlightCard, type CardRoomInput } from '../../shared/cards'
 import { renderNote } from '../../shared/markdown'
 import { renderCardsPdf } from '../../server/cards/cardPdf'
 import { compactLists } from '../../server/cards/pdfText'
-import { inspectPdf, pdfRuns } from '../support/pdf'
+import { inspectPdf, pdfRuns, unitBreaks } from '../support/pdf'
 
 const fontDir = resolve(import.meta.dirname, '../../node_modules/@fontsource/lora/files')
 const font = (name: string) => readFileSync(resolve(fontDir, name))
@@ -24,36 +24,83 @@ function card(note: string, intro = 'Six pours along the **shore**: take _your_ 
     const g = ethanolGrams(ml, abv)
     return { position: i + 1, product: { name, kind, producer: 'Unit Cellars', vintageOrBatch: '2025', allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film, tastingNote: renderNote(note) }
   })
-  const venue = { name: 'Unit Tasting Room', address: '1 Unit Lane', cautions: 'Please do not drive after your tasting.\nYou must be of legal drinking age.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC' }
+  const venue = { name: 'Unit Tasting Room', address: '1 Unit Lane', cautions: 'Please do not drive after your tasting.\nYou must be of legal drinking age.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC', country: 'PT', cardPaper: null }
   return buildFlightCard({ venue, flight: { id: 1, name: 'Unit flight', version: 1, summary: 'Six pours', pours, totals: flightTotals(pours, 14), intro: renderNote(intro) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'A Guest', room })
 }
 
+/** A note as long as a venue's usual one: a sentence and a two-item list. */
+const USUAL_NOTE = 'Green apple and **brioche**, then:\n\n- lemon _zest_\n- a **saline, chalky** finish'
+
 describe('the card PDF with notes', () => {
   it.each(['a5', 'half-letter'] as const)('%s: six pours, each with a note and a list, fit one page per card', async (paper) => {
-    const bytes = await renderCardsPdf([card('Green apple and **brioche**, then:\n\n- lemon _zest_\n- a **saline, chalky** finish\n- fine bubbles'), card('**Pear**.')], { paper, fonts })
+    const bytes = await renderCardsPdf([card(USUAL_NOTE), card('**Pear**.')], { paper, fonts })
     const pdf = inspectPdf(bytes)
     expect(pdf.pages).toBe(2)
-    expect(pdf.pageText(1).replace(/\s+/g, ' ')).toContain('Scan: the glass explained')
+    expect(pdf.pageText(1).replace(/\s+/g, ' ')).toContain('Scan for more')
     const runs = pdfRuns(bytes).filter(r => r.page === 1)
     expect(runs.filter(r => r.text.includes('saline, chalky')).map(r => r.family)).toEqual(Array(6).fill('Lora-SemiBold'))
     expect(runs.find(r => r.text.includes('zest'))?.family).toBe('Lora') // the italic face is named Lora too
     expect(runs.find(r => r.text.includes('shore'))?.family).toBe('Lora-SemiBold')
   }, 30_000)
 
+  it.each(['a5', 'half-letter'] as const)('%s: no text below 8.5 pt, the pours\' text at 9 pt, the notes at 8.5 pt in full ink', async (paper) => {
+    const runs = pdfRuns(await renderCardsPdf([card(USUAL_NOTE)], { paper, fonts }))
+    expect(runs.length).toBeGreaterThan(50)
+    // pdftohtml reads sizes to a third of a point (tests/support/pdf.ts): 8.5 pt reads 8.67, 8.4 pt reads 8.33.
+    const small = runs.filter(r => r.size < 8.5)
+    expect(small, small.map(r => `${r.size} pt: ${r.text}`).join('\n')).toEqual([])
+    expect(runs.find(r => r.text.includes('Unit Cider'))!.size).toBeCloseTo(9, 1)
+    const note = runs.find(r => r.text.includes('Green apple'))!
+    expect(note.size).toBeGreaterThanOrEqual(8.5)
+    expect(note.size).toBeLessThan(9)
+    expect(note.color).toBe('#1e2326') // the card's ink, not a grey
+  }, 30_000)
+
+  it.each(['a5', 'half-letter'] as const)('%s: no figure is parted from its unit at a line\'s end', async (paper) => {
+    // Long product names push the figures to the ends of lines, where a break would fall.
+    const cards = [0, 1, 2, 3, 4, 5].map((shift) => {
+      const c = card(USUAL_NOTE)
+      c.pours.forEach((p, i) => { p.name = `${p.name} ${'Old '.repeat((i + shift) % 4)}${'Reserve '.repeat(shift % 2)}`.trim() })
+      return c
+    })
+    const bytes = await renderCardsPdf(cards, { paper, fonts })
+    expect(unitBreaks(bytes)).toEqual([])
+    expect(inspectPdf(bytes).text).toMatch(/\d\u00a0?\s?mm\/s/) // the check has speeds to look at
+  }, 30_000)
+
+  it('prints a millimetre scale whose marks are 10 mm apart on paper', async () => {
+    const bytes = await renderCardsPdf([card('**Pear**.')], { paper: 'a5', fonts })
+    const dir = (await import('node:fs')).mkdtempSync(resolve((await import('node:os')).tmpdir(), 'larmoir-ruler-'))
+    const file = resolve(dir, 'card.pdf')
+    ;(await import('node:fs')).writeFileSync(file, bytes)
+    const html = (await import('node:child_process')).execFileSync('pdftotext', ['-bbox', file, '-'], { encoding: 'utf8' })
+    const marks = [...html.matchAll(/<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">(\d+)<\/word>/g)]
+      .map(m => ({ n: Number(m[5]), y: (Number(m[2]) + Number(m[4])) / 2, x: Number(m[1]) }))
+      .filter(m => m.x > 380 && m.n % 10 === 0)
+    // The scale's own numbers: from its 0 (the lowest on the page) up, one every 10 mm.
+    const zero = marks.filter(m => m.n === 0).sort((a, b) => b.y - a.y)[0]!
+    const scale = marks.filter(m => m.y <= zero.y + 0.1 && Math.abs(m.x - zero.x) < 12 && (m.n === 0 ? m === zero : true))
+    const y = (n: number) => scale.find(m => m.n === n)!.y
+    expect(scale.map(m => m.n).sort((a, b) => a - b)).toEqual([0, 10, 20, 30, 40, 50, 60, 70, 80])
+    // 10 mm = 72 / 25.4 × 10 = 28.35 pt (the PostScript point, 1/72 in; 1 in = 25.4 mm exactly)
+    expect(y(0) - y(10)).toBeCloseTo(28.35, 1)
+    expect(y(0) - y(80)).toBeCloseTo(226.77, 1)
+  }, 30_000)
+
   it('a note too long for any fit step flows onto a second page and loses no words', async () => {
     const long = Array.from({ length: 12 }, (_, i) => `- point ${i + 1} with **bold ${i + 1}** words`).join('\n')
     const pdf = inspectPdf(await renderCardsPdf([card(long)], { paper: 'a5', fonts }))
-    expect(pdf.pages).toBe(2)
-    const flat = pdf.text.replace(/\s+/g, ' ')
+    expect(pdf.pages).toBeGreaterThan(1)
+    const flat = pdf.raw.replace(/\s+/g, ' ')
     expect(flat.match(/point 12 with bold 12 words/g)).toHaveLength(6)
   }, 30_000)
 
   it('prints the room reading the card assumed, on the print page\'s data and in the PDF', async () => {
     const reading = card('**Pear**.', undefined, { air: { relativeHumidityPct: 57, airTempC: 23.4 }, source: 'session', readAt: '2026-10-03T13:40:00Z' })
-    expect(reading.room).toEqual({ relativeHumidityPct: 57, airTempC: 23.4, source: 'session', readAt: '2026-10-03T13:40:00.000Z', text: 'Room: 23 °C, 57 % RH — read for this session' })
+    expect(reading.room).toEqual({ relativeHumidityPct: 57, airTempC: 23.4, source: 'session', readAt: '2026-10-03T13:40:00.000Z', text: 'Room: 23\u00a0°C, 57 % RH — read for this session' })
     const usual = card('**Pear**.')
-    expect(usual.room.text).toBe(`Room: ${DEFAULT_ROOM_AIR.airTempC} °C, ${DEFAULT_ROOM_AIR.relativeHumidityPct} % RH — the room's usual air`)
-    const text = inspectPdf(await renderCardsPdf([reading, usual], { paper: 'a5', fonts })).text.replace(/\s+/g, ' ')
+    expect(usual.room.text).toBe(`Room: ${DEFAULT_ROOM_AIR.airTempC}\u00a0°C, ${DEFAULT_ROOM_AIR.relativeHumidityPct} % RH — the room's usual air`)
+    const text = inspectPdf(await renderCardsPdf([reading, usual], { paper: 'a5', fonts })).raw.replace(/\s+/g, ' ')
     expect(text).toContain('Room: 23 °C, 57 % RH — read for this session')
     expect(text).toContain(`Room: ${DEFAULT_ROOM_AIR.airTempC} °C, ${DEFAULT_ROOM_AIR.relativeHumidityPct} % RH`)
   }, 30_000)

@@ -1,13 +1,15 @@
 import { idParam } from '../../../../shared/schemas/common'
 import { sessionCardsSchema } from '../../../../shared/schemas/cards'
 import type { CardJobStarted } from '../../../../shared/types/host'
+import { venueCardPaper } from '../../../../shared/paper'
 
 /** Starts one PDF of a session's cards (one per seated guest); poll the job for progress. */
 export default defineEventHandler(async (event): Promise<CardJobStarted> => {
   const { id } = await readParamsAs(event, idParam)
-  const { paper, names } = await readBodyAs(event, sessionCardsSchema)
+  const body = await readBodyAs(event, sessionCardsSchema)
   const { user, venue, session } = await requireSessionHost(event, id)
-  const cards = await sessionCards(venue, session, names)
+  const paper = body.paper ?? venueCardPaper(venue)
+  const cards = await sessionCards(venue, session, body.names)
   if (!cards.length) conflict('Nobody is booked or seated in this session yet.')
   const job = startCardJob(user.id, cards, paper, `session-${id}-cards-${paper}.pdf`)
   setResponseStatus(event, 202)

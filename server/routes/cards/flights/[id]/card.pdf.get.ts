@@ -1,14 +1,17 @@
 import { idParam } from '../../../../../shared/schemas/common'
 import { cardPdfQuerySchema } from '../../../../../shared/schemas/cards'
 import { renderCardsPdf } from '../../../../cards/cardPdf'
+import { venueCardPaper } from '../../../../../shared/paper'
 
-/** A flight's card as PDF, A5 or US half letter, with the shipped Lora font embedded. */
+/** A flight's card as PDF, A5 or US half letter (by default the venue's paper), with the shipped Lora font embedded. */
 export default defineEventHandler(async (event) => {
   await requireRole(event, 'manager', 'host', 'marketing')
   const { id } = await readParamsAs(event, idParam)
-  const { paper, copies } = await readQueryAs(event, cardPdfQuerySchema)
-  const card = await flightCard(await getVenue(), id)
-  const pdf = await renderCardsPdf(Array.from({ length: copies }, () => card), { paper, fonts: await cardFonts() })
+  const query = await readQueryAs(event, cardPdfQuerySchema)
+  const venue = await getVenue()
+  const paper = query.paper ?? venueCardPaper(venue)
+  const card = await flightCard(venue, id)
+  const pdf = await renderCardsPdf(Array.from({ length: query.copies }, () => card), { paper, fonts: await cardFonts() })
   setResponseHeaders(event, {
     'content-type': 'application/pdf',
     'content-disposition': `inline; filename="flight-${id}-${paper}.pdf"`,
