@@ -12,8 +12,8 @@ import { rangeText, type FilmResult, type Range } from './science'
 export interface ContrastPour { position: number, film: FilmResult }
 
 /** What a pour is singled out for (one per pour at most, each claim given to one pour). */
-export type ContrastClaim =
-  | 'foam' | 'still' | 'sugar' | 'highest' | 'first' | 'slowest' | 'fastest' | 'lowest' | 'last' | 'swirl' | 'rank'
+export type ContrastClaim
+  = | 'foam' | 'still' | 'sugar' | 'highest' | 'first' | 'slowest' | 'fastest' | 'lowest' | 'last' | 'swirl' | 'rank'
 
 export interface PourContrast {
   position: number

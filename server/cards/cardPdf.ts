@@ -118,7 +118,7 @@ function footGroups(card: FlightCard, fit: CardFit): Piece[][] {
     [{ blocks: plain(`This flight: ${card.totals.standardDrinks.toFixed(1)} standard drinks, ${card.totals.ethanolGrams.toFixed(1)}\u00a0g of ethanol in ${card.totals.volumeText} (${card.totals.definition}).`, { bold: true }), size: T.body, color: INK, gap: 0 }],
     ...(al ? [[{ blocks: plain(al, { bold: true }), size: T.body, color: INK, gap: 0 }]] : []),
     // The air the figures assume: the host's reading for the session, or the venue's usual room.
-    [{ blocks: plain(`${card.room.text}.`), size: T.body, color: INK, gap: 0 }],
+    [{ blocks: plain(card.room.text), size: T.body, color: INK, gap: 0 }],
     ...(fit.why ? [[{ blocks: plain(card.why), size: T.fine, color: SOFT, gap: 0 }]] : []),
     [{ blocks: plain(card.quality, { italic: true }), size: T.fine, color: SOFT, gap: 0 }],
     ...card.cautions.map(line => [{ blocks: plain(line), size: T.fine, color: INK, gap: 0 }]),
@@ -221,10 +221,9 @@ function plan(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, height: numbe
 
 function drawCard(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, width: number, height: number) {
   const f = frameOf(width, height)
-  const plans = CARD_FIT_STEPS.map(fit => plan(doc, card, f, height, fit))
-  const p = plans.find(x => x.fits) ?? plans.at(-1)!
-  if (process.env.CARD_DEBUG) console.error(blocksOf(card, p.fit).map(b => Math.round(blockHeight(doc, b, f, p.fit))).join(" "), p.split)
-  if (process.env.CARD_DEBUG) console.error(plans.map(x => [x.headH, tableHeight(card.pours.length), x.colH, MARGIN + x.headH + tableHeight(card.pours.length) + x.colH - (height - MARGIN)].map(Math.round).join(' ')))
+  // The first fit step at which the card fits its page, else the last.
+  let p = plan(doc, card, f, height, CARD_FIT_STEPS[0]!)
+  for (let i = 1; i < CARD_FIT_STEPS.length && !p.fits; i++) p = plan(doc, card, f, height, CARD_FIT_STEPS[i]!)
   const fit = p.fit
   doc.addPage()
   ruler(doc, card, width, height, fit)

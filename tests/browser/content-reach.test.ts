@@ -109,7 +109,7 @@ describe('marketing\'s words and photo where guests read them', () => {
           expect(pdf.pages, `${path} at ${paper}: one page per card`).toBe(cards)
           expect(pdf.width).toBeCloseTo(width, -0.5)
           expect(pdf.height).toBeCloseTo(height, -0.5)
-          expect(pdf.pageText(cards).replace(/\s+/g, ' ')).toContain('Scan: the glass explained')
+          expect(pdf.pageText(cards).replace(/\s+/g, ' ')).toContain('Scan for more')
         }
         if (cards === 1) await shot(page, 'content-card-page')
       }

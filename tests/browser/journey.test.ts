@@ -234,7 +234,7 @@ describe('one journey from invitation to printed card', () => {
     const pdf = Buffer.from(await (await page.context().request.get(href!)).body())
     const card = inspectPdf(pdf, 'journey-card-page-1')
     expect(card.pages, 'one page per seated guest').toBe(2)
-    const flat = card.text.replace(/\s+/g, ' ')
+    const flat = card.raw.replace(/\s+/g, ' ')
     expect(flat).toContain(intro.replace(/\s+/g, ' '))
     expect(flat).toContain(noteWords.bold)
     for (const item of noteWords.items) expect(flat).toContain(item)

@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs'
 import { beforeAll, describe, expect, inject, it } from 'vitest'
 import { Client } from '../support/http'
 import { signedIn } from '../support/people'
-import { inspectPdf } from '../support/pdf'
+import { inspectPdf, pdfRuns, unitBreaks } from '../support/pdf'
 import { SHOTS_DIR } from '../support/browser'
 
 /** Invented products for this test's flight (no real brand). */
@@ -45,19 +45,22 @@ describe('card data', () => {
       const c = card.pours[i]
       const grams = p.ml * p.abv / 100 * ETHANOL_G_PER_ML
       expect(c.position).toBe(i + 1)
-      expect(c.abvText).toBe(`${p.abv} % ABV`)
+      expect(c.abvText).toBe(`${p.abv}\u00a0% ABV`)
       expect(c.volumeText).toBe(`${(p.ml / 29.5735295625).toFixed(1)}\u00a0fl\u00a0oz`) // 1 US fl oz = 29.5735295625 mL (exact, US customary units)
       expect(c.ethanolGrams).toBeCloseTo(grams, 1)
       expect(c.standardDrinks).toBeCloseTo(grams / 14, 2) // NIAAA: one US standard drink = 14 g of ethanol
-      expect(c.lookFor.length).toBeGreaterThan(0)
+      expect(c.figures.band).toMatch(/^\d/) // every one of these six climbs in the default room
+      expect(c.contrast).toBeTruthy()
       expect(c.allergens).toEqual(p.kind === 'spirit' ? [] : ['sulfites'])
     })
     expect(card.totals.standardDrinks).toBeCloseTo(INVENTED.reduce((s, p) => s + p.ml * p.abv / 100 * ETHANOL_G_PER_ML, 0) / 14, 1)
     expect(card.quality).toMatch(/nothing about quality/)
     expect(card.cautions.join(' ')).toMatch(/Driving\? Please do not drink/) // the fixed block (shared/cautions.ts, in its short form) is on every card
     expect(card.qrUrl).toBe(`${inject('appUrl')}/pour/${flightId}`)
-    // The sweet tawny's text explains its slower tears by its sugar.
-    expect(card.pours[4].lookFor.join(' ')).toMatch(/110\sg\/L of sugar/)
+    // The sweet tawny is the pour whose sugar slows everything, and the card says so with its range.
+    expect(card.pours[4].contrast).toMatch(/^Its 110\sg\/L of sugar slows everything: .* \(\d[\d.]*–\d[\d.]*\smm\/s\)/)
+    // A US venue prints on half letter by default (shared/paper.ts).
+    expect(card.paper).toBe('half-letter')
   })
 
   it('counts standard drinks under the venue\'s definition: UK units of 8 g', async () => {
@@ -98,11 +101,29 @@ describe('card PDF', () => {
     expect(pdf.height).toBeCloseTo(h, 1)
     expect(pdf.fonts.map(f => f.name.split('+')[1])).toEqual(expect.arrayContaining(['Lora-Regular', 'Lora-SemiBold']))
     expect(pdf.fonts.every(f => f.embedded)).toBe(true)
-    const flat = pdf.text.replace(/\s+/g, ' ')
+    const flat = pdf.raw.replace(/\s+/g, ' ')
     for (const p of INVENTED) expect(flat).toContain(p.name)
     expect(flat).toContain('Pétillant') // an accented character survives the embedded font
     expect(flat).toMatch(/standard drinks/)
     expect(flat).toMatch(/say nothing about quality/)
+  })
+
+  it('the demo flight: one page on each paper, no text under 8.5 pt, no unit parted from its figure; half letter by default for a US venue', async () => {
+    const flights = (await manager.get('/api/flights')).body as { id: number, name: string }[]
+    const demo = flights.find(f => f.name === 'Shoreline Flight')!
+    for (const paper of ['a5', 'half-letter']) {
+      const bytes = Buffer.from(await (await manager.raw(`/cards/flights/${demo.id}/card.pdf?paper=${paper}`)).arrayBuffer())
+      const pdf = inspectPdf(bytes, `card-demo-${paper}`)
+      expect(pdf.pages, paper).toBe(1)
+      const runs = pdfRuns(bytes)
+      // pdftohtml reads sizes to a third of a point: 8.5 pt reads 8.67, anything under reads 8.33 or less.
+      expect(runs.filter(r => r.size < 8.5).map(r => `${r.size}: ${r.text}`), paper).toEqual([])
+      expect(unitBreaks(bytes), paper).toEqual([])
+      expect(pdf.raw.replace(/\s+/g, ' ')).toContain('Hold this edge against the glass, 0 at the liquid\'s surface')
+    }
+    const byDefault = await manager.raw(`/cards/flights/${demo.id}/card.pdf`)
+    expect(byDefault.headers.get('content-disposition')).toBe(`inline; filename="flight-${demo.id}-half-letter.pdf"`)
+    expect(inspectPdf(Buffer.from(await byDefault.arrayBuffer())).width).toBeCloseTo(396, 1) // 5.5 in × 72 pt/in
   })
 
   it('prints several copies, one card per page, and refuses bad options', async () => {

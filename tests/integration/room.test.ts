@@ -73,7 +73,7 @@ describe('the venue\'s usual room reading', () => {
     const card = (await manager.get(`/api/flights/${await demoFlightId()}/card`)).body
     expect(card.room).toEqual({
       relativeHumidityPct: DEMO_VENUE.roomHumidityPct, airTempC: DEMO_VENUE.roomAirTempC, source: 'venue', readAt: null,
-      text: `Room: ${F(DEMO_VENUE.roomAirTempC)} °F, ${DEMO_VENUE.roomHumidityPct} % RH — the room's usual air`,
+      text: `Room: ${F(DEMO_VENUE.roomAirTempC)}\u00a0°F, ${DEMO_VENUE.roomHumidityPct} % RH — the room's usual air`,
     })
   })
 
@@ -85,7 +85,7 @@ describe('the venue\'s usual room reading', () => {
     const flightId = await demoFlightId()
     const view = (await new Client().get(`/api/flights/${flightId}`)).body as { pours: { film: { inputs: { room: unknown } } }[] }
     for (const p of view.pours) expect(p.film.inputs.room).toEqual({ relativeHumidityPct: 41, airTempC: 23.9 })
-    expect((await manager.get(`/api/flights/${flightId}/card`)).body.room.text).toBe('Room: 75 °F, 41 % RH — the room\'s usual air')
+    expect((await manager.get(`/api/flights/${flightId}/card`)).body.room.text).toBe('Room: 75\u00a0°F, 41 % RH — the room\'s usual air')
     // Another reading: the memoised film must not answer with the one computed for the last room.
     expect((await manager.patch('/api/venue', { ...original, roomHumidityPct: 70, roomAirTempC: 17 })).status).toBe(200)
     const again = (await new Client().get(`/api/flights/${flightId}`)).body as typeof view
@@ -157,12 +157,12 @@ describe('the host\'s reading for a session', () => {
     const cards = (await host.get(`/api/sessions/${mine}/cards`)).body
     expect(cards.cards).toHaveLength(2)
     for (const c of cards.cards) {
-      expect(c.room).toEqual({ relativeHumidityPct: 64, airTempC: 22.8, source: 'session', readAt: row.at!.toISOString(), text: 'Room: 73 °F, 64 % RH — read for this session' })
+      expect(c.room).toEqual({ relativeHumidityPct: 64, airTempC: 22.8, source: 'session', readAt: row.at!.toISOString(), text: 'Room: 73\u00a0°F, 64 % RH — read for this session' })
     }
     // The flight's own card (not the session's) keeps the venue's usual air.
     const flightCard = (await host.get(`/api/flights/${await demoFlightId()}/card`)).body
     expect(flightCard.room.source).toBe('venue')
-    expect(flightCard.room.text).toBe(`Room: ${F(DEMO_VENUE.roomAirTempC)} °F, ${DEMO_VENUE.roomHumidityPct} % RH — the room's usual air`)
+    expect(flightCard.room.text).toBe(`Room: ${F(DEMO_VENUE.roomAirTempC)}\u00a0°F, ${DEMO_VENUE.roomHumidityPct} % RH — the room's usual air`)
 
     const started = await host.post(`/api/sessions/${mine}/card-jobs`, { paper: 'a5', names: true })
     expect(started.status).toBe(202)
@@ -173,14 +173,14 @@ describe('the host\'s reading for a session', () => {
     }
     expect(job.status).toBe('done')
     const pdf = inspectPdf(Buffer.from(await (await host.raw(`/cards/jobs/${started.body.jobId}/cards.pdf`)).arrayBuffer()))
-    const text = pdf.text.replace(/\s+/g, ' ')
+    const text = pdf.raw.replace(/\s+/g, ' ')
     expect(text.match(/Room: 73 °F, 64 % RH — read for this session/g)).toHaveLength(2)
   })
 
   it('a newer reading replaces the last; a manager may read any session\'s room', async () => {
     expect((await read(manager, mine, { relativeHumidityPct: 58, airTempC: 21 })).status).toBe(200)
     expect(await sessionRow(mine)).toMatchObject({ rh: 58, air: 21 })
-    expect((await host.get(`/api/sessions/${mine}/cards`)).body.cards[0].room.text).toBe('Room: 70 °F, 58 % RH — read for this session')
+    expect((await host.get(`/api/sessions/${mine}/cards`)).body.cards[0].room.text).toBe('Room: 70\u00a0°F, 58 % RH — read for this session')
     expect((await read(manager, theirs, { relativeHumidityPct: 50, airTempC: 20 })).status).toBe(200)
   })
 

@@ -56,6 +56,9 @@ const BAD: [string, string, unknown, string, RegExp][] = [
   ['hours that are not per day', 'openingHours', 'always open', 'openingHours', /per day of the week/],
   ['a room humidity over 100 %', 'roomHumidityPct', 130, 'roomHumidityPct', /whole number from 0 to 100 %/],
   ['a room air temperature past the model\'s range, in the demo\'s °F', 'roomAirTempC', 55, 'roomAirTempC', /between 32 and 104 °F/],
+  ['a country code that names no country', 'country', 'QQ', 'country', /country from the list/], // QQ is user-assigned, not a country (ISO 3166-1, from memory)
+  ['a country given by its name', 'country', 'Portugal', 'country', /country from the list/],
+  ['a paper the cards do not print on', 'cardPaper', 'a4', 'cardPaper', /A5, US half letter/],
 ]
 
 describe('venue settings: each bad field', () => {
@@ -74,6 +77,20 @@ describe('venue settings: each bad field', () => {
     expect(res.status).toBe(400)
     expect(Object.keys(res.body.data.fields).sort()).toEqual(['currency', 'email', 'locale', 'phone', 'timeZone', 'website'])
     expect(await settings()).toEqual(before)
+  })
+})
+
+describe('venue settings: the cards\' paper', () => {
+  it('follows the country (half letter in the US and Canada, A5 in Portugal) until the manager chooses one', async () => {
+    const paperOf = async () => (await manager.get(`/api/flights/${((await manager.get('/api/flights')).body as { id: number, status: string }[]).find(f => f.status === 'published')!.id}/card`)).body.paper
+    // US letter-size paper is the office standard in the US and Canada; Portugal uses ISO 216 (from memory).
+    for (const [country, paper] of [['US', 'half-letter'], ['CA', 'half-letter'], ['pt', 'a5']] as const) {
+      expect((await manager.patch('/api/venue', { ...original, country, cardPaper: null })).status).toBe(200)
+      expect((await settings()).country).toBe(country.toUpperCase())
+      expect(await paperOf(), country).toBe(paper)
+    }
+    expect((await manager.patch('/api/venue', { ...original, country: 'PT', cardPaper: 'half-letter' })).status).toBe(200)
+    expect(await paperOf()).toBe('half-letter')
   })
 })
 

@@ -15,12 +15,13 @@ export default defineEventHandler(async (event): Promise<PourPage> => {
   const view = await flightView(venue, await loadFlight(venue, id, { publishedOnly: true }))
   const pour = view.pours.find(p => p.position === position)
   if (!pour) notFound('This flight has no such pour.')
-  const card = buildFlightCard({ venue, flight: { ...view, pours: [pour] }, publicUrl: appLink(`/pour/${id}`), room: venueRoom(venue) })
+  // The whole flight's card, so the pour carries what sets it apart within its flight.
+  const card = buildFlightCard({ venue, flight: view, publicUrl: appLink(`/pour/${id}`), room: venueRoom(venue) })
   return {
     venue: { name: venue.name, temperatureUnit: venue.temperatureUnit },
     flight: { id: view.id, name: view.name, pourCount: view.pours.length },
     intro: view.intro,
-    pour: card.pours[0]!,
+    pour: card.pours.find(p => p.position === position)!,
     photo: pour.photo,
     description: describePour(pour.film, { temperatureUnit: venue.temperatureUnit === 'f' ? 'F' : 'C' }),
     room: pour.film.inputs.room,
