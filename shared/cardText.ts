@@ -41,3 +41,12 @@ export function bindUnits(text: string): string {
     .replace(/\bfl oz\b/g, 'fl\u00a0oz')
     .replace(/% ABV\b/g, '%\u00a0ABV')
 }
+
+/**
+ * bindUnits for a web page, where a browser may also break after the en dash of a range
+ * ("11–" ⏎ "35 mm"): word joiners hold a range's ends to its dash. (Not for the PDF, whose font has
+ * no glyph for the joiner and whose layout breaks only at spaces.)
+ */
+export function bindUnitsWeb(text: string): string {
+  return bindUnits(text).replace(/(\d)–(\d)/g, '$1\u2060–\u2060$2')
+}

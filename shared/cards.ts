@@ -92,17 +92,18 @@ export const CARD_GLASS_MM = 30
  * How a card is fitted to its page, tried in order until it fits (both the PDF and the print page
  * walk this list). The type never shrinks below CARD_TYPE_PT: first the note's lists run on
  * ("• pear  • quince") instead of one item a line, then the lines close up a little, then the
- * explanation of why tears form is left to the pour pages the QR code opens. Past the last step the
- * card flows onto a second page.
+ * explanation of why tears form is left to the pour pages the QR code opens, then the space between
+ * blocks halves. Past the last step the card flows onto a second page.
  */
-export interface CardFit { compactLists: boolean, leading: number, why: boolean }
+export interface CardFit { compactLists: boolean, leading: number, why: boolean, /** × the space between blocks */ gaps: number }
 export const CARD_FIT_STEPS: readonly CardFit[] = [
-  { compactLists: false, leading: 1.18, why: true },
-  { compactLists: true, leading: 1.18, why: true },
-  { compactLists: true, leading: 1.12, why: true },
-  { compactLists: true, leading: 1.18, why: false },
-  { compactLists: true, leading: 1.12, why: false },
-  { compactLists: true, leading: 1.08, why: false },
+  { compactLists: false, leading: 1.18, why: true, gaps: 1 },
+  { compactLists: true, leading: 1.18, why: true, gaps: 1 },
+  { compactLists: true, leading: 1.12, why: true, gaps: 1 },
+  { compactLists: true, leading: 1.18, why: false, gaps: 1 },
+  { compactLists: true, leading: 1.12, why: false, gaps: 1 },
+  { compactLists: true, leading: 1.08, why: false, gaps: 1 },
+  { compactLists: true, leading: 1.08, why: false, gaps: 0.5 },
 ]
 
 const ALLERGEN_LABELS: Record<Allergen, string> = {
@@ -114,7 +115,7 @@ const ALLERGEN_LABELS: Record<Allergen, string> = {
 const CARD_WHY = 'Why: ethanol leaves the thin film on the glass faster than water, so the film\'s surface tension rises above the rest of the pour. That pull draws liquid up the wall (the Gibbs–Marangoni effect) until the ridge at the top grows too heavy and falls back as tears. The ranges are for a clean glass in still air in this room; a draught or traces of detergent change them.'
 
 /** How to use the millimetre scale printed along the card's edge. */
-const CARD_RULER_HINT = 'Hold this edge against the glass, 0 at the liquid\'s surface, and read where the clear band ends.'
+const CARD_RULER_HINT = 'Millimetres: hold this edge against the glass, 0 at the liquid\'s surface, and read where the clear band ends.'
 
 /** A whole-number range for counts: "22–24", "20". */
 function countRange(r: { low: number, high: number } | null, central: number | null): string {

@@ -22,7 +22,12 @@ export function formatDay(instant: string | Date, clock: VenueClock, now = new D
   return new Intl.DateTimeFormat(clock.locale, { timeZone: clock.timeZone, weekday: 'short', month: 'short', day: 'numeric', ...(otherYear(d, clock, now) ? { year: 'numeric' } : {}) }).format(d)
 }
 
-/** "Saturday, October 3, 2026": always with the year (confirmations, cards). */
+/** "Sat, Oct 3, 2026": short, always with the year (a card a guest keeps). */
+export function formatShortDayWithYear(instant: string | Date, clock: VenueClock): string {
+  return new Intl.DateTimeFormat(clock.locale, { timeZone: clock.timeZone, weekday: 'short', month: 'short', day: 'numeric', year: 'numeric' }).format(toDate(instant))
+}
+
+/** "Saturday, October 3, 2026": always with the year (confirmations). */
 export function formatLongDay(instant: string | Date, clock: VenueClock): string {
   return new Intl.DateTimeFormat(clock.locale, { timeZone: clock.timeZone, dateStyle: 'full' }).format(toDate(instant))
 }

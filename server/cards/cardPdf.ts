@@ -81,12 +81,12 @@ function leadRuns(text: string): TextRun[] {
   return lead ? [{ text: lead, bold: true }, { text: rest }] : [{ text: rest }]
 }
 
-function pourPieces(card: FlightCard, pour: Pour): Piece[] {
+function pourPieces(card: FlightCard, pour: Pour, fit: CardFit): Piece[] {
   const factRuns: TextRun[] = [{ text: cardFacts(card, pour) }]
   return [
     // One paragraph: "3  Tidewater Albariño · 2024 · 12.5 % ABV · 2.0 fl oz at 50 °F. Second-highest band…".
     { blocks: para([{ text: `${pour.position}\u00a0\u00a0${pour.name}`, bold: true }, { text: ' · ' }, ...factRuns, ...(pour.contrast ? [{ text: '. ' }, ...leadRuns(pour.contrast)] : [{ text: '.' }])]), size: T.body, color: INK, gap: 0 },
-    ...(pour.tastingNote?.blocks.length ? [{ blocks: pour.tastingNote.blocks, size: T.note, color: INK, gap: 3, rule: true as const }] : []),
+    ...(pour.tastingNote?.blocks.length ? [{ blocks: pour.tastingNote.blocks, size: T.note, color: INK, gap: 3 * fit.gaps, rule: true as const }] : []),
   ]
 }
 
@@ -199,8 +199,8 @@ interface Block { pieces: Piece[], after: number, rule?: true }
 function blocksOf(card: FlightCard, fit: CardFit): Block[] {
   const foot = footGroups(card, fit)
   return [
-    ...card.pours.map(p => ({ pieces: pourPieces(card, p), after: POUR_GAP })),
-    ...foot.map((pieces, i) => ({ pieces, after: 2, ...(i === 0 ? { rule: true as const } : {}) })),
+    ...card.pours.map(p => ({ pieces: pourPieces(card, p, fit), after: POUR_GAP * fit.gaps })),
+    ...foot.map((pieces, i) => ({ pieces, after: 2 * fit.gaps, ...(i === 0 ? { rule: true as const } : {}) })),
   ]
 }
 
@@ -281,7 +281,7 @@ function glassTable(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, top: nu
       const w = Math.min(slot - 4, cardGlassWidth(pour, GLASS_ROW))
       drawCardGlass(doc, pour, x + (slot - w) / 2, y, w, GLASS_ROW)
       // The pour's number at the top left of its glass.
-      doc.font(FACES.bold).fontSize(T.body).fillColor(INK).text(String(pour.position), x + 2, y, { width: 14, lineBreak: false })
+      doc.font(FACES.bold).fontSize(T.body).fillColor(INK).text(String(pour.position), x + (slot - w) / 2 - 1, y, { width: 14, lineBreak: false })
       FIGURE_ROWS.forEach((r, j) => {
         const text = r.key === 'drinks' ? pour.standardDrinks.toFixed(2) : pour.figures[r.key]
         doc.font(FACES.regular).fontSize(T.fine).fillColor(INK).text(text, x, rows + TABLE_LINE * j, { width: slot, align: 'center', lineBreak: false })
@@ -337,14 +337,13 @@ function ruler(doc: PDFKit.PDFDocument, card: FlightCard, width: number, height:
     const yy = zero - mm * MM
     const len = mm % 10 === 0 ? 10 : mm % 5 === 0 ? 6 : 3.5
     doc.moveTo(edge - len, yy).lineTo(edge, yy).lineWidth(mm % 10 === 0 ? 0.8 : 0.45).strokeColor(INK).stroke()
-    // Each number sits just above its tick, clear of the shorter ticks at the edge.
-    if (mm % 10 === 0) doc.font(FACES.regular).fontSize(T.fine).fillColor(INK).text(String(mm), edge - 27, yy - T.fine * 1.2, { width: 20, align: 'right', lineBreak: false })
+    // Each number sits just above its tick, clear of the 1 mm ticks at the edge and of the text.
+    if (mm % 10 === 0) doc.font(FACES.regular).fontSize(T.fine).fillColor(INK).text(String(mm), edge - 24, yy - T.fine * 1.15, { width: 20, align: 'right', lineBreak: false })
   }
-  doc.font(FACES.bold).fontSize(T.fine).fillColor(INK).text('scale, mm', edge - 50, top - T.fine * 1.9, { width: 50, align: 'right', lineBreak: false })
   // How to use it, read up the edge above the scale.
-  const along = top - T.fine * 2.6 - (QR_BLOCK + 6)
+  const along = top - T.fine * 1.2 - (QR_BLOCK + 6)
   const hint = layout(doc, { blocks: plain(card.ruler), size: T.fine, color: INK, gap: 0 }, along, fit)
-  doc.translate(edge - hint.height - 1, top - T.fine * 2.6).rotate(-90)
+  doc.translate(edge - hint.height + 1, top - T.fine * 1.2).rotate(-90)
   drawRich(doc, hint, 0, 0)
   doc.restore()
 }

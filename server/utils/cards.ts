@@ -6,7 +6,7 @@ import type { CardPaper } from '../../shared/paper'
 import type { FlightCard } from '../../shared/types/cards'
 import type { Venue } from '../db/schema/venues'
 import type { TastingSession } from '../db/schema/sessions'
-import { formatLongDay, formatTime } from '../../shared/dates'
+import { formatShortDayWithYear, formatTime } from '../../shared/dates'
 
 let fonts: Promise<CardFonts> | undefined
 
@@ -45,7 +45,7 @@ export async function flightCard(venue: Venue, flightId: number, extra: { guestN
  * assume the host's reading of the room for this session, if there is one yet.
  */
 export async function sessionCards(venue: Venue, session: TastingSession, names: boolean): Promise<FlightCard[]> {
-  const base = await flightCard(venue, session.flightId, { sessionLabel: `${formatLongDay(session.startsAt, venue)}, ${formatTime(session.startsAt, venue)}`, room: sessionRoom(venue, session) })
+  const base = await flightCard(venue, session.flightId, { sessionLabel: `${formatShortDayWithYear(session.startsAt, venue)}, ${formatTime(session.startsAt, venue)}`, room: sessionRoom(venue, session) })
   const parties = await useDb().select({ b: tables.bookings, c: tables.checkIns }).from(tables.bookings)
     .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, tables.bookings.id))
     .where(and(eq(tables.bookings.sessionId, session.id), inArray(tables.bookings.state, ['confirmed', 'checked_in'])))

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { openBrowser, shot, signInThroughForm } from '../support/browser'
-import { inspectPdf } from '../support/pdf'
+import { inspectPdf, pdfRuns, unitBreaks } from '../support/pdf'
 import { signedIn } from '../support/people'
 import { bookAndPay, newGuest, newSession } from '../support/booking'
 import { CONTENT, flightWithContent, type ContentFlight } from '../support/content'
@@ -105,7 +105,11 @@ describe('marketing\'s words and photo where guests read them', () => {
         for (const [paper, width, height] of PAPERS) {
           await page.getByLabel('Paper').selectOption(paper)
           await expect.poll(() => page.locator(`.card-sheet[data-fitted-for="${paper}"]`).count()).toBe(cards)
-          const pdf = inspectPdf(await page.pdf({ preferCSSPageSize: true, printBackground: true }), `content-browser-card-${cards}-${paper}`)
+          const printed = await page.pdf({ preferCSSPageSize: true, printBackground: true })
+          const pdf = inspectPdf(printed, `content-browser-card-${cards}-${paper}`)
+          // The print page keeps the PDF's rules: nothing under 8.5 pt (read to a third of a point), no unit parted from its figure.
+          expect(pdfRuns(printed).filter(r => r.size < 8.5).map(r => `${r.size}: ${r.text}`), `${path} at ${paper}`).toEqual([])
+          expect(unitBreaks(printed), `${path} at ${paper}`).toEqual([])
           expect(pdf.pages, `${path} at ${paper}: one page per card`).toBe(cards)
           expect(pdf.width).toBeCloseTo(width, -0.5)
           expect(pdf.height).toBeCloseTo(height, -0.5)

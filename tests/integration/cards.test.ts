@@ -119,7 +119,7 @@ describe('card PDF', () => {
       // pdftohtml reads sizes to a third of a point: 8.5 pt reads 8.67, anything under reads 8.33 or less.
       expect(runs.filter(r => r.size < 8.5).map(r => `${r.size}: ${r.text}`), paper).toEqual([])
       expect(unitBreaks(bytes), paper).toEqual([])
-      expect(pdf.raw.replace(/\s+/g, ' ')).toContain('Hold this edge against the glass, 0 at the liquid\'s surface')
+      expect(pdf.raw.replace(/\s+/g, ' ')).toContain('Millimetres: hold this edge against the glass, 0 at the liquid\'s surface')
     }
     const byDefault = await manager.raw(`/cards/flights/${demo.id}/card.pdf`)
     expect(byDefault.headers.get('content-disposition')).toBe(`inline; filename="flight-${demo.id}-half-letter.pdf"`)
