@@ -20,6 +20,7 @@ import { CARD_PAPER_POINTS, type CardPaper } from '../../shared/paper'
 import type { FlightCard } from '../../shared/types/cards'
 import type { TextBlock, TextRun } from '../../shared/types/content'
 import { FACES, drawRich, layoutRich, type RichLayout } from './pdfText'
+import { sfntOf } from './woff'
 import { drawCardGlass, cardGlassWidth } from './cardGlass'
 import { cardAllergens, cardFacts, leadSplit } from '../../shared/cardText'
 
@@ -43,20 +44,23 @@ const GLASS_GAP = 6
 export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPaper, fonts: CardFonts, title?: string, onCard?: (done: number, total: number) => void }): Promise<Buffer> {
   const { width, height } = CARD_PAPER_POINTS[opts.paper]
   const doc = new PDFDocument({ size: [width, height], margin: MARGIN, autoFirstPage: false, info: { Title: opts.title ?? cards[0]?.flight.name ?? 'Flight cards', Creator: 'Larmoir' } })
-  doc.registerFont(FACES.regular, opts.fonts.regular)
-  doc.registerFont(FACES.bold, opts.fonts.semibold)
-  doc.registerFont(FACES.italic, opts.fonts.italic)
-  doc.registerFont(FACES.boldItalic, opts.fonts.semiboldItalic)
+  // The shipped .woff files, unwrapped once per process (server/cards/woff.ts).
+  doc.registerFont(FACES.regular, sfntOf(opts.fonts.regular))
+  doc.registerFont(FACES.bold, sfntOf(opts.fonts.semibold))
+  doc.registerFont(FACES.italic, sfntOf(opts.fonts.italic))
+  doc.registerFont(FACES.boldItalic, sfntOf(opts.fonts.semiboldItalic))
   const chunks: Buffer[] = []
   doc.on('data', (c: Buffer) => chunks.push(c))
   const done = new Promise<Buffer>(resolve => doc.on('end', () => resolve(Buffer.concat(chunks))))
   // One QR image per distinct URL (a session's cards share it).
-  const qrCache = new Map<string, Buffer>()
+  // One QR code per distinct URL (a session's cards share it), drawn as vector squares.
+  const qrCache = new Map<string, QrModules>()
   for (let i = 0; i < cards.length; i++) {
     const card = cards[i]!
     let qr = qrCache.get(card.qrUrl)
     if (!qr) {
-      qr = await QRCode.toBuffer(card.qrUrl, { margin: 1, width: 200, errorCorrectionLevel: 'M' })
+      const { modules } = QRCode.create(card.qrUrl, { errorCorrectionLevel: 'M' })
+      qr = { size: modules.size, dark: Array.from(modules.data, v => Boolean(v)) }
       qrCache.set(card.qrUrl, qr)
     }
     drawCard(doc, card, qr, width, height)
@@ -68,6 +72,8 @@ export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPap
 }
 
 type Pour = FlightCard['pours'][number]
+/** A QR code's modules, row by row (qrcode's own matrix). */
+interface QrModules { size: number, dark: boolean[] }
 
 /** One piece of text: blocks of runs in one size and colour (pdfText.ts lays it out). */
 interface Piece { blocks: TextBlock[], size: number, color: string, gap: number, rule?: true }
@@ -219,7 +225,7 @@ function plan(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, height: numbe
   return { fit, headH, split, colH, fits: MARGIN + headH + tableHeight(card.pours.length) + colH <= height - MARGIN }
 }
 
-function drawCard(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, width: number, height: number) {
+function drawCard(doc: PDFKit.PDFDocument, card: FlightCard, qr: QrModules, width: number, height: number) {
   const f = frameOf(width, height)
   // The first fit step at which the card fits its page, else the last.
   let p = plan(doc, card, f, height, CARD_FIT_STEPS[0]!)
@@ -312,9 +318,16 @@ function headHeight(doc: PDFKit.PDFDocument, card: FlightCard, f: Frame, fit: Ca
 }
 
 /** The QR code to the pour pages, at the header's right. */
-function qrCode(doc: PDFKit.PDFDocument, qr: Buffer, f: Frame) {
+function qrCode(doc: PDFKit.PDFDocument, qr: QrModules, f: Frame) {
   const qx = f.left + f.textW - QR
-  doc.image(qr, qx, MARGIN, { width: QR, height: QR })
+  // A quiet zone of one module on each side (ISO/IEC 18004 asks for four; the white card around it gives the rest).
+  const cell = QR / (qr.size + 2)
+  doc.save()
+  qr.dark.forEach((on, i) => {
+    if (on) doc.rect(qx + cell * (1 + (i % qr.size)), MARGIN + cell * (1 + Math.floor(i / qr.size)), cell + 0.02, cell + 0.02)
+  })
+  doc.fill(INK)
+  doc.restore()
   doc.font(FACES.regular).fontSize(T.fine).fillColor(SOFT).text('Scan for more', qx - 14, MARGIN + QR + 1, { width: QR + 28, align: 'center', lineBreak: false })
 }
 

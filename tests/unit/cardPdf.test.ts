@@ -68,6 +68,18 @@ describe('the card PDF with notes', () => {
     expect(inspectPdf(bytes).text).toMatch(/\d\u00a0?\s?mm\/s/) // the check has speeds to look at
   }, 30_000)
 
+  it('carries a QR code that a phone reads as the pour pages\' address', async () => {
+    const { execFileSync } = await import('node:child_process')
+    const { mkdtempSync, writeFileSync, readFileSync } = await import('node:fs')
+    const { PNG } = await import('pngjs')
+    const jsQR = (await import('jsqr')).default
+    const dir = mkdtempSync(resolve((await import('node:os')).tmpdir(), 'larmoir-qr-'))
+    writeFileSync(resolve(dir, 'card.pdf'), await renderCardsPdf([card('**Pear**.')], { paper: 'a5', fonts }))
+    execFileSync('pdftoppm', ['-png', '-r', '200', '-singlefile', resolve(dir, 'card.pdf'), resolve(dir, 'page')])
+    const png = PNG.sync.read(readFileSync(resolve(dir, 'page.png')))
+    expect(jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data).toBe('http://localhost:3000/pour/1')
+  }, 30_000)
+
   it('prints a millimetre scale whose marks are 10 mm apart on paper', async () => {
     const bytes = await renderCardsPdf([card('**Pear**.')], { paper: 'a5', fonts })
     const dir = (await import('node:fs')).mkdtempSync(resolve((await import('node:os')).tmpdir(), 'larmoir-ruler-'))
