@@ -67,7 +67,7 @@ const ROUTES: Row[] = [
   { route: 'GET /api/account', path: () => '/api/account', expect: signedInAll(200) },
   { route: 'POST /api/auth/signin', path: () => '/api/auth/signin', body: () => ({ email: uniqueEmail('nobody'), password: 'not-the-password' }), expect: all(401) },
   { route: 'POST /api/auth/signout', path: () => '/api/auth/signout', expect: all(200), fresh: true },
-  { route: 'POST /api/auth/signup', path: () => '/api/auth/signup', body: () => ({ name: 'Matrix Guest', email: uniqueEmail('matrix'), password: 'guest-password-1', dateOfBirth: '1990-05-14' }), expect: all(201), fresh: true },
+  { route: 'POST /api/auth/signup', path: () => '/api/auth/signup', body: () => ({ name: 'Matrix Guest', email: uniqueEmail('matrix'), password: 'guest-password-1', dateOfBirth: '1990-05-14' }), expect: all(202), fresh: true },
   { route: 'POST /api/auth/invitation', path: () => '/api/auth/invitation', body: () => ({ token: 'x'.repeat(43), password: 'staff-password-1' }), expect: all(400) },
   { route: 'POST /api/auth/password-reset', path: () => '/api/auth/password-reset', body: () => ({ email: 'nobody@example.test' }), expect: all(200) },
   { route: 'POST /api/auth/password-reset/confirm', path: () => '/api/auth/password-reset/confirm', body: () => ({ token: 'y'.repeat(43), password: 'guest-password-1' }), expect: all(400) },
