@@ -246,7 +246,7 @@ export async function undoAtDoor(tx: Tx, venue: Venue, bookingId: number, actorI
  * a walk-in typed up after the last pour). Later, the door record of a past session is a manager's
  * to correct, so a host's account cannot rewrite old days.
  */
-export const DOOR_GRACE_HOURS = 6
+const DOOR_GRACE_HOURS = 6
 
 export function assertSessionDay(session: TastingSession, venue: Venue, user: CurrentUser, now = new Date()) {
   const start = DateTime.fromJSDate(session.startsAt, { zone: venue.timeZone })

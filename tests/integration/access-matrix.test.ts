@@ -41,6 +41,8 @@ interface Row {
   fresh?: boolean
   /** A new target for each role (routes that use their target up). */
   perRole?: boolean
+  /** The route ends every sign-in of the caller's account: everybody signs in again afterwards. */
+  endsSessions?: boolean
 }
 
 const all = (s: number): Expect => ({ anonymous: s, guest: s, otherGuest: s, host: s, marketing: s, manager: s })
@@ -67,6 +69,10 @@ const ROUTES: Row[] = [
   { route: 'GET /api/account', path: () => '/api/account', expect: signedInAll(200) },
   { route: 'POST /api/auth/signin', path: () => '/api/auth/signin', body: () => ({ email: uniqueEmail('nobody'), password: 'not-the-password' }), expect: all(401) },
   { route: 'POST /api/auth/signout', path: () => '/api/auth/signout', expect: all(200), fresh: true },
+  { route: 'POST /api/auth/signout-everywhere', path: () => '/api/auth/signout-everywhere', expect: signedInAll(200), fresh: true, endsSessions: true },
+  { route: 'POST /api/auth/verify-email', path: () => '/api/auth/verify-email', body: () => ({ token: 'v'.repeat(43) }), expect: all(400) },
+  // Both guests' addresses are confirmed already.
+  { route: 'POST /api/account/address-check', path: () => '/api/account/address-check', expect: only({ guest: 409, otherGuest: 409 }) },
   { route: 'POST /api/auth/signup', path: () => '/api/auth/signup', body: () => ({ name: 'Matrix Guest', email: uniqueEmail('matrix'), password: 'guest-password-1', dateOfBirth: '1990-05-14' }), expect: all(202), fresh: true },
   { route: 'POST /api/auth/invitation', path: () => '/api/auth/invitation', body: () => ({ token: 'x'.repeat(43), password: 'staff-password-1' }), expect: all(400) },
   { route: 'POST /api/auth/password-reset', path: () => '/api/auth/password-reset', body: () => ({ email: 'nobody@example.test' }), expect: all(200) },
@@ -262,6 +268,7 @@ describe('access matrix', () => {
       seen[role] = res.status
       if (res.status >= 400) expect(typeof res.body === 'object' ? res.body.message : res.body, `${role}: ${row.route} says why`).toBeTruthy()
     }
+    if (row.endsSessions) for (const role of RUN_ORDER) people[role] = await signInAs(role)
     expect(seen).toEqual(row.expect)
   })
 

@@ -18,8 +18,8 @@ import { PARTY_MAX } from '../../../shared/bookings'
  * Both are counted inside the booking transaction with the guest's own row locked, so requests in
  * parallel are counted one after another. (Documented in DEVELOPERS.md, "Seat hoarding".)
  */
-export const UNPAID_HOLDS_PER_GUEST = 3
-export const UNPAID_SEATS_PER_GUEST = PARTY_MAX
+const UNPAID_HOLDS_PER_GUEST = 3
+const UNPAID_SEATS_PER_GUEST = PARTY_MAX
 
 type BookingInput = z.output<typeof bookingCreateSchema>
 
