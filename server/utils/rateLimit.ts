@@ -11,7 +11,7 @@ export function clientAddress(event: H3Event): string {
 /**
  * Request budgets kept in this process's memory: `max` uses per key in a sliding `windowMs`. The
  * map is pruned as it goes and capped (MAX_KEYS), oldest first, so a flood of new keys cannot grow
- * it without end. One app process serves the venue (DEVELOPERS.md, "Deployment"); several would
+ * it without end. The app runs as one process; several would
  * each keep their own budgets.
  */
 const MAX_KEYS = 50_000
