@@ -236,18 +236,19 @@ describe('access matrix', () => {
     fx.paidBooking = paid.id
     fx.paidReference = paid.reference
 
+    // The manager is looked up each time: a row that ends sessions signs everybody in afresh.
     const newFlight = async () => {
-      const res = await m.post('/api/flights', flightBody(fx))
+      const res = await people.manager.post('/api/flights', flightBody(fx))
       expect(res.status, JSON.stringify(res.body)).toBe(201)
       return res.body.id as number
     }
     fx.draftFlight = newFlight
     fx.publishedFlight = async () => {
       const id = await newFlight()
-      expect((await m.post(`/api/flights/${id}/publish`)).status).toBe(200)
+      expect((await people.manager.post(`/api/flights/${id}/publish`)).status).toBe(200)
       return id
     }
-    fx.freshSession = async () => (await newSession(m, { seats: 4 })).id
+    fx.freshSession = async () => (await newSession(people.manager, { seats: 4 })).id
   })
 
   afterAll(async () => {
