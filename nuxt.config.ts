@@ -23,8 +23,8 @@ export default defineNuxtConfig({
     migrationsDir: 'server/db/migrations',
     trustProxy: false,
     smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Larmoir <no-reply@larmoir.test>' },
-    throttle: { accountMax: 5, ipMax: 30, windowMinutes: 15, lockMinutes: 15 },
-    tokens: { inviteHours: 72, resetMinutes: 60 },
+    throttle: { accountMax: 5, ipMax: 30, windowMinutes: 15, maxDelayMinutes: 15 },
+    tokens: { inviteHours: 72, resetMinutes: 60, verifyHours: 48 },
     outboxIntervalSeconds: 15,
     /** Where uploaded images live: outside the code tree, git-ignored; relative to the working directory. */
     uploadDir: '.data/uploads',

@@ -3,7 +3,7 @@ import { DEMO_BOOKINGS, DEMO_GUESTS } from '../demo/bookings'
 
 /** Demo guests and their bookings on the first demo sessions, inside the seeding transaction. */
 export async function seedDemoBookings(tx: Tx, venueId: number): Promise<number> {
-  await tx.insert(tables.users).values(DEMO_GUESTS.map(g => ({ email: g.email, name: g.name, role: 'guest' as const, dateOfBirth: g.dateOfBirth, passwordHash: null })))
+  await tx.insert(tables.users).values(DEMO_GUESTS.map(g => ({ email: g.email, name: g.name, role: 'guest' as const, dateOfBirth: g.dateOfBirth, passwordHash: null, emailVerifiedAt: new Date() })))
   const guests = await tx.select().from(tables.users).where(inArray(tables.users.email, DEMO_GUESTS.map(g => g.email)))
   const byEmail = new Map(guests.map(g => [g.email, g.id]))
   const sessions = await tx.select().from(tables.tastingSessions).where(eq(tables.tastingSessions.venueId, venueId)).orderBy(asc(tables.tastingSessions.startsAt)).limit(10)

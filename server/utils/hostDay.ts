@@ -241,10 +241,27 @@ export async function undoAtDoor(tx: Tx, venue: Venue, bookingId: number, actorI
   return staleCheckouts
 }
 
-export function assertSessionDay(session: TastingSession, venue: Venue, now = new Date()) {
+/**
+ * How long after a session ends its host may still record who came (a late entry at closing time,
+ * a walk-in typed up after the last pour). Later, the door record of a past session is a manager's
+ * to correct, so a host's account cannot rewrite old days.
+ */
+const DOOR_GRACE_HOURS = 6
+
+export function assertSessionDay(session: TastingSession, venue: Venue, user: CurrentUser, now = new Date()) {
   const start = DateTime.fromJSDate(session.startsAt, { zone: venue.timeZone })
   const today = DateTime.fromJSDate(now, { zone: venue.timeZone })
   if (!start.hasSame(today, 'day') && now < session.startsAt) {
     conflict(`Check-in opens on the day of the session (${formatDay(session.startsAt, venue, now)}).`)
+  }
+  assertDoorOpen(session, user, now)
+}
+
+/** Door decisions on a session that ended more than DOOR_GRACE_HOURS ago are for managers only (409 for a host). */
+export function assertDoorOpen(session: Pick<TastingSession, 'startsAt' | 'durationMinutes'>, user: CurrentUser, now = new Date()) {
+  if (user.role === 'manager') return
+  const closesAt = session.startsAt.getTime() + (session.durationMinutes * 60 + DOOR_GRACE_HOURS * 3600) * 1000
+  if (now.getTime() > closesAt) {
+    conflict(`This session ended more than ${DOOR_GRACE_HOURS} hours ago, so its door record is closed. Ask a manager to correct it.`)
   }
 }

@@ -54,7 +54,7 @@ async function seedDemo(): Promise<void> {
   await useDb().transaction(async (tx) => {
     const [venue] = await tx.insert(tables.venues).values(DEMO_VENUE).$returningId()
     const venueId = venue!.id
-    await tx.insert(tables.users).values(DEMO_USERS.map(u => ({ ...u, passwordHash })))
+    await tx.insert(tables.users).values(DEMO_USERS.map(u => ({ ...u, passwordHash, emailVerifiedAt: new Date() })))
     const productIds = new Map<string, number>()
     for (const p of DEMO_PRODUCTS) {
       const { abvPctVol, residualSugarGL, ...product } = p

@@ -23,3 +23,5 @@ export const signInSchema = z.object({
 export const resetRequestSchema = z.object({ email: emailField })
 
 export const setPasswordSchema = z.object({ token: tokenField, password: passwordField })
+
+export const addressCheckSchema = z.object({ token: tokenField })

@@ -1,5 +1,5 @@
 import { z } from './zod'
-import { emailField, isoDateField, personNameField } from './common'
+import { isoDateField, personNameField } from './common'
 import { PARTY_MAX } from '../bookings'
 
 const phoneField = z.string({ error: 'Enter a phone number.' }).trim()
@@ -7,13 +7,15 @@ const phoneField = z.string({ error: 'Enter a phone number.' }).trim()
   .regex(/^\+?[0-9 ().-]+$/, { error: 'Use digits, spaces, + ( ) - and . only.' })
   .refine(s => s.replace(/\D/g, '').length >= 6, { error: 'Enter a phone number the venue can call on the day.' })
 
-/** The booking form and `POST /api/bookings` share this schema. */
+/**
+ * The booking form and `POST /api/bookings` share this schema. There is no e-mail field: booking
+ * mail goes only to the account's confirmed address.
+ */
 export const bookingCreateSchema = z.object({
   sessionId: z.number({ error: 'Choose a session.' }).int({ error: 'Choose a session.' }).positive({ error: 'Choose a session.' }),
   partySize: z.number({ error: 'Enter how many guests.' }).int({ error: 'Use a whole number of guests.' })
     .min(1, { error: `Book for 1 to ${PARTY_MAX} guests.` }).max(PARTY_MAX, { error: `Book for 1 to ${PARTY_MAX} guests; for a larger group, contact the venue.` }),
   contactName: personNameField,
-  contactEmail: emailField,
   contactPhone: phoneField,
   dateOfBirth: isoDateField,
   notes: z.string({ error: 'Notes must be text.' }).trim().max(500, { error: 'Keep notes under 500 characters.' }).nullish().transform(v => v || null),

@@ -9,7 +9,11 @@ export const passwordField = z.string({ error: 'Enter a password.' })
   .min(PASSWORD_MIN, { error: `Use at least ${PASSWORD_MIN} characters for the password.` })
   .max(200, { error: 'Use at most 200 characters for the password.' })
 
+/** Line breaks and tabs (U+0085, U+2028 and U+2029 included): a name is one line of an e-mail or a list. */
+const LINE_BREAKS = /[\t\n\v\f\r\u0085\u2028\u2029]/
+
 export const personNameField = z.string({ error: 'Enter a name.' })
+  .refine(s => !LINE_BREAKS.test(s), { error: 'Write the name on one line, without line breaks or tabs.' })
   .trim().min(1, { error: 'Enter a name.' }).max(120, { error: 'Use at most 120 characters for the name.' })
 
 /** A calendar date typed as YYYY-MM-DD that really exists (no 2023-02-30). */

@@ -9,6 +9,8 @@ export interface AccountView {
   /** Calendar date YYYY-MM-DD, or null until the first booking asks for it. */
   dateOfBirth: string | null
   createdAt: string
+  /** The address has been proved by its e-mailed link; a guest books only then. */
+  emailConfirmed: boolean
 }
 
 /** A staff account on the manager's staff page (GET /api/staff). */
@@ -22,5 +24,5 @@ export interface StaffMember {
   createdAt: string
 }
 
-/** An answer that is only a message for the person (POST /api/auth/password-reset). */
+/** An answer that is only a message for the person (sign-up, password reset, a new address-check link). */
 export interface MessageAnswer { message: string }

@@ -7,6 +7,11 @@ declare module '#auth-utils' {
     email: string
     role: Role
   }
+  /** Server-only part of the sealed cookie: which sign-in this is, and the account's session version then. */
+  interface SecureSessionData {
+    sid: string
+    version: number
+  }
 }
 
 export {}

@@ -47,4 +47,4 @@ export interface BookingView {
 export interface BookingCreated { booking: BookingView, checkoutUrl: string, resumed: boolean }
 
 /** What the booking form starts from when a guest gives back a hold to change it. */
-export type BookingFormStart = Pick<BookingView, 'partySize' | 'contactName' | 'contactEmail' | 'contactPhone'> & { notes: string }
+export type BookingFormStart = Pick<BookingView, 'partySize' | 'contactName' | 'contactPhone'> & { notes: string }

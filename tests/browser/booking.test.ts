@@ -6,7 +6,7 @@ import { DateTime } from 'luxon'
 import { SHOTS_DIR, openBrowser, payWithTestCard, shot, signInThroughForm } from '../support/browser'
 import { type Client, uniqueEmail } from '../support/http'
 import { withDb } from '../support/db'
-import { waitForMail } from '../support/mail'
+import { linkUrl, waitForMail } from '../support/mail'
 import { bookingBody, checkoutIdOf, demoFlightId, newGuest, newSession, payCheckout, signedIn, waitForState } from '../support/booking'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
 
@@ -67,9 +67,25 @@ describe('a guest books and pays through the pages', () => {
     await page.getByLabel('E-mail').fill(guest.email)
     await page.getByLabel('Password').fill(guest.password)
     await page.getByLabel('Date of birth').fill('1987-09-21')
+    const bookPath = new URL(page.url()).searchParams.get('redirect')!
     await page.getByRole('button', { name: 'Create my account' }).click()
-    await page.waitForURL('**/book/*')
+    await page.getByText('Check your e-mail').waitFor()
+    await shot(page, 'booking-signup-check-email')
+
+    // Signed in before confirming the address, the booking page says what to do instead of the form.
+    await signInThroughForm(page, guest.email, guest.password)
+    await page.waitForURL('**/account')
+    await page.goto(bookPath)
+    await page.getByRole('heading', { name: 'Confirm your e-mail address to book' }).waitFor()
+    expect(await page.getByRole('button', { name: /Continue to payment/ }).count()).toBe(0)
+    await shot(page, 'booking-confirm-address')
+
+    // The link in the e-mail confirms the address and brings the guest back to the session they chose.
+    await page.goto(linkUrl(await waitForMail(guest.email, /Confirm your e-mail address/), '/verify-email'))
+    await page.getByRole('button', { name: 'Confirm my address' }).click()
+    await page.waitForURL(`**${bookPath}`)
     await page.getByRole('heading', { name: 'Book your seats' }).waitFor()
+    await page.getByText(`We send the confirmation and your door code to ${guest.email}`).waitFor()
 
     await page.getByLabel('Guests in your party').selectOption('2')
     await page.getByLabel('Phone').fill('+1 207 555 0134')

@@ -186,6 +186,10 @@ describe('one journey from invitation to printed card', () => {
     await page.getByLabel('Password').fill(guest.password)
     await page.getByLabel('Date of birth').fill('1991-03-08')
     await page.getByRole('button', { name: 'Create my account' }).click()
+    await page.getByText('Check your e-mail').waitFor()
+    // The guest opens the link in the e-mail, which confirms the address and brings them back to the session.
+    await page.goto(linkUrl(await waitForMail(guest.email, /Confirm your e-mail address/), '/verify-email'))
+    await page.getByRole('button', { name: 'Confirm my address' }).click()
     await page.waitForURL(`**/book/${sessionId}`)
     await page.getByLabel('Guests in your party').selectOption('2')
     await page.getByLabel('Phone').fill('+1 207 555 0167')

@@ -103,6 +103,7 @@ const PAGES: Record<string, PageRow> = {
   '/reset-password': { who: 'anonymous', query: f => ({ token: f.resetToken }), main: p => p.getByRole('button', { name: 'Save my new password' }) },
   '/signin': { who: 'anonymous', main: p => p.getByRole('button', { name: 'Sign in' }) },
   '/signup': { who: 'anonymous', main: p => p.getByRole('button', { name: 'Create my account' }) },
+  '/verify-email': { who: 'anonymous', query: () => ({ token: 'v'.repeat(43) }), main: p => p.getByRole('button', { name: 'Confirm my address' }) },
   '/welcome': { who: 'anonymous', query: f => ({ token: f.welcomeToken }), main: p => p.getByRole('button', { name: 'Set my password' }) },
 }
 

@@ -41,6 +41,8 @@ interface Row {
   fresh?: boolean
   /** A new target for each role (routes that use their target up). */
   perRole?: boolean
+  /** The route ends every sign-in of the caller's account: everybody signs in again afterwards. */
+  endsSessions?: boolean
 }
 
 const all = (s: number): Expect => ({ anonymous: s, guest: s, otherGuest: s, host: s, marketing: s, manager: s })
@@ -67,7 +69,11 @@ const ROUTES: Row[] = [
   { route: 'GET /api/account', path: () => '/api/account', expect: signedInAll(200) },
   { route: 'POST /api/auth/signin', path: () => '/api/auth/signin', body: () => ({ email: uniqueEmail('nobody'), password: 'not-the-password' }), expect: all(401) },
   { route: 'POST /api/auth/signout', path: () => '/api/auth/signout', expect: all(200), fresh: true },
-  { route: 'POST /api/auth/signup', path: () => '/api/auth/signup', body: () => ({ name: 'Matrix Guest', email: uniqueEmail('matrix'), password: 'guest-password-1', dateOfBirth: '1990-05-14' }), expect: all(201), fresh: true },
+  { route: 'POST /api/auth/signout-everywhere', path: () => '/api/auth/signout-everywhere', expect: signedInAll(200), fresh: true, endsSessions: true },
+  { route: 'POST /api/auth/verify-email', path: () => '/api/auth/verify-email', body: () => ({ token: 'v'.repeat(43) }), expect: all(400) },
+  // Both guests' addresses are confirmed already.
+  { route: 'POST /api/account/address-check', path: () => '/api/account/address-check', expect: only({ guest: 409, otherGuest: 409 }) },
+  { route: 'POST /api/auth/signup', path: () => '/api/auth/signup', body: () => ({ name: 'Matrix Guest', email: uniqueEmail('matrix'), password: 'guest-password-1', dateOfBirth: '1990-05-14' }), expect: all(202), fresh: true },
   { route: 'POST /api/auth/invitation', path: () => '/api/auth/invitation', body: () => ({ token: 'x'.repeat(43), password: 'staff-password-1' }), expect: all(400) },
   { route: 'POST /api/auth/password-reset', path: () => '/api/auth/password-reset', body: () => ({ email: 'nobody@example.test' }), expect: all(200) },
   { route: 'POST /api/auth/password-reset/confirm', path: () => '/api/auth/password-reset/confirm', body: () => ({ token: 'y'.repeat(43), password: 'guest-password-1' }), expect: all(400) },
@@ -230,18 +236,19 @@ describe('access matrix', () => {
     fx.paidBooking = paid.id
     fx.paidReference = paid.reference
 
+    // The manager is looked up each time: a row that ends sessions signs everybody in afresh.
     const newFlight = async () => {
-      const res = await m.post('/api/flights', flightBody(fx))
+      const res = await people.manager.post('/api/flights', flightBody(fx))
       expect(res.status, JSON.stringify(res.body)).toBe(201)
       return res.body.id as number
     }
     fx.draftFlight = newFlight
     fx.publishedFlight = async () => {
       const id = await newFlight()
-      expect((await m.post(`/api/flights/${id}/publish`)).status).toBe(200)
+      expect((await people.manager.post(`/api/flights/${id}/publish`)).status).toBe(200)
       return id
     }
-    fx.freshSession = async () => (await newSession(m, { seats: 4 })).id
+    fx.freshSession = async () => (await newSession(people.manager, { seats: 4 })).id
   })
 
   afterAll(async () => {
@@ -262,6 +269,7 @@ describe('access matrix', () => {
       seen[role] = res.status
       if (res.status >= 400) expect(typeof res.body === 'object' ? res.body.message : res.body, `${role}: ${row.route} says why`).toBeTruthy()
     }
+    if (row.endsSessions) for (const role of RUN_ORDER) people[role] = await signInAs(role)
     expect(seen).toEqual(row.expect)
   })
 

@@ -85,6 +85,7 @@ describe('password reset', () => {
   it('e-mails a link; the new password works, the old one stops, and the link works once', async () => {
     const email = uniqueEmail('forgot')
     await new Client().post('/api/auth/signup', { name: 'Ida Brook', email, password: 'old-password-123', dateOfBirth: '1985-02-02' })
+    await waitForMail(email, /Confirm your e-mail address/)
     const req = await new Client().post('/api/auth/password-reset', { email })
     expect(req.status).toBe(200)
     const token = linkToken(await waitForMail(email, /Reset your/), '/reset-password')
@@ -101,6 +102,7 @@ describe('password reset', () => {
   it('refuses an expired reset link', async () => {
     const email = uniqueEmail('stale')
     await new Client().post('/api/auth/signup', { name: 'Jon Stale', email, password: 'old-password-123', dateOfBirth: '1985-02-02' })
+    await waitForMail(email, /Confirm your e-mail address/)
     await new Client().post('/api/auth/password-reset', { email })
     const token = linkToken(await waitForMail(email, /Reset your/), '/reset-password')
     await expireTokensOf(email)

@@ -3,6 +3,7 @@ import { DateTime } from 'luxon'
 import Stripe from 'stripe'
 import { Client, uniqueEmail, type Reply } from './http'
 import { withDb } from './db'
+import { linkToken, waitForMail } from './mail'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
 import { LOCAL_STRIPE_SECRET_KEY } from '../../scripts/lib/stack'
 import { TEST_CARD_SUCCESS } from '../../scripts/fakes/stripe'
@@ -59,14 +60,31 @@ export async function signedIn(email: string, password = DEMO_PASSWORD): Promise
   return c
 }
 
-/** A new guest account (signed in), born on `dateOfBirth`. */
+/**
+ * A new guest account, born on `dateOfBirth`: signed up, its address confirmed through the link in
+ * the e-mail as a guest would, and so signed in.
+ */
 export async function newGuest(tag = 'guest', dateOfBirth = '1990-05-14'): Promise<{ client: Client, email: string, name: string, dateOfBirth: string }> {
+  const { client, email, name } = await signedUpGuest(tag, dateOfBirth)
+  await confirmAddress(client, email)
+  return { client, email, name, dateOfBirth }
+}
+
+/** A guest who has signed up but not yet opened the e-mailed link (not signed in). */
+export async function signedUpGuest(tag = 'guest', dateOfBirth = '1990-05-14', password = 'guest-password-1'): Promise<{ client: Client, email: string, name: string, password: string }> {
   const client = new Client()
   const email = uniqueEmail(tag)
   const name = `Guest ${tag}`
-  const res = await client.post('/api/auth/signup', { name, email, password: 'guest-password-1', dateOfBirth })
-  expect(res.status, JSON.stringify(res.body)).toBe(201)
-  return { client, email, name, dateOfBirth }
+  const res = await client.post('/api/auth/signup', { name, email, password, dateOfBirth })
+  expect(res.status, JSON.stringify(res.body)).toBe(202)
+  return { client, email, name, password }
+}
+
+/** Opens the address-check link of the `count`-th such e-mail to `email` with `client`, which is then signed in. */
+export async function confirmAddress(client: Client, email: string, count = 1): Promise<void> {
+  const token = linkToken(await waitForMail(email, /Confirm your e-mail address/, { count }), '/verify-email')
+  const res = await client.post('/api/auth/verify-email', { token })
+  expect(res.status, JSON.stringify(res.body)).toBe(200)
 }
 
 let publishedFlightId: number | undefined

@@ -49,6 +49,13 @@ export class Client {
   post = <T = any>(path: string, body?: unknown, headers?: Record<string, string>) => this.request<T>('POST', path, body ?? {}, headers)
   patch = <T = any>(path: string, body?: unknown) => this.request<T>('PATCH', path, body ?? {})
 
+  /** Another client carrying a copy of this one's cookies (a stolen or copied cookie), from another address. */
+  copy(): Client {
+    const other = new Client()
+    for (const [k, v] of this.cookies) other.cookies.set(k, v)
+    return other
+  }
+
   async signIn(email: string, password: string): Promise<Reply> {
     return this.post('/api/auth/signin', { email, password })
   }

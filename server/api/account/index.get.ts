@@ -10,6 +10,8 @@ export default defineEventHandler(async (event): Promise<AccountView> => {
     role: tables.users.role,
     dateOfBirth: tables.users.dateOfBirth,
     createdAt: tables.users.createdAt,
+    emailVerifiedAt: tables.users.emailVerifiedAt,
   }).from(tables.users).where(eq(tables.users.id, me.id))
-  return { ...row!, createdAt: row!.createdAt.toISOString() }
+  const { emailVerifiedAt, ...rest } = row!
+  return { ...rest, createdAt: rest.createdAt.toISOString(), emailConfirmed: emailVerifiedAt !== null }
 })

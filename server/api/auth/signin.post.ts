@@ -12,8 +12,8 @@ export default defineEventHandler(async (event) => {
   const [row] = await useDb().select().from(tables.users).where(eq(tables.users.email, input.email)).limit(1)
   decoyHash ??= hashPassword(crypto.randomUUID())
   const ok = row?.passwordHash
-    ? await verifyPassword(row.passwordHash, input.password)
-    : (await verifyPassword(await decoyHash, input.password), false)
+    ? await verifyPasswordBounded(row.passwordHash, input.password)
+    : (await verifyPasswordBounded(await decoyHash, input.password), false)
 
   if (!row || !ok) {
     await recordSignInFailure(keys)
@@ -22,8 +22,6 @@ export default defineEventHandler(async (event) => {
   if (row.disabled) {
     throw createError({ status: 403, statusText: 'Account disabled', message: 'This account has been disabled. Ask the venue manager.' })
   }
-  await clearAccountThrottle(keys.account)
-  const user = sessionUserOf(row)
-  await setUserSession(event, { user })
-  return { user }
+  await clearAccountThrottle(keys)
+  return { user: await startUserSession(event, row) }
 })

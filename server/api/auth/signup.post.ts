@@ -1,31 +1,21 @@
-import { eq } from 'drizzle-orm'
+import type { MessageAnswer } from '../../../shared/types/account'
 import { ageOn, signUpSchema } from '../../../shared/schemas/auth'
 
-/** Guests create their own account; staff accounts come only from a manager's invitation. */
-export default defineEventHandler(async (event) => {
+/**
+ * Guests create their own account; staff accounts come only from a manager's invitation. The answer
+ * is the same whether or not the address already has an account (the e-mail tells the difference),
+ * and the password is hashed only after answering, so neither the words nor the timing give it away.
+ */
+export default defineEventHandler(async (event): Promise<MessageAnswer> => {
   const input = await readBodyAs(event, signUpSchema)
   const venue = await getVenue()
   const today = new Date().toISOString().slice(0, 10)
   if (ageOn(input.dateOfBirth, today) < venue.legalAge) {
     invalidFields({ dateOfBirth: `You must be at least ${venue.legalAge} to create an account.` })
   }
-  const passwordHash = await hashPassword(input.password)
-  // The unique index on e-mail decides a race between two sign-ups; no locking read (which
-  // deadlocks under concurrent sign-ups with different addresses).
-  const taken = (): never => conflict('An account with this e-mail already exists. Sign in, or reset your password.', { fields: { email: 'An account with this e-mail already exists.' } })
-  const [existing] = await useDb().select({ id: tables.users.id }).from(tables.users).where(eq(tables.users.email, input.email))
-  if (existing) taken()
-  let id: number
-  try {
-    const [row] = await useDb().insert(tables.users).values({ email: input.email, name: input.name, passwordHash, role: 'guest', dateOfBirth: input.dateOfBirth }).$returningId()
-    id = row!.id
-  }
-  catch (err) {
-    if (isDuplicateKey(err)) taken()
-    throw err
-  }
-  const user = { id, name: input.name, email: input.email, role: 'guest' as const }
-  await setUserSession(event, { user })
-  setResponseStatus(event, 201)
-  return { user }
+  limitClient(event, 'signUpPerClient', 'Too many sign-ups from your network. Please try again in an hour.')
+  if (hashQueueFull()) throw createError({ status: 503, statusText: 'Busy', message: 'We are busy right now. Please try again in a few seconds.' })
+  afterResponse('sign-up', () => registerGuest(input))
+  setResponseStatus(event, 202)
+  return { message: `Check your e-mail: we have sent a message to ${input.email} with the next step.` }
 })

@@ -14,6 +14,8 @@ export default defineEventHandler(async (event) => {
     const [user] = await tx.select().from(tables.users).where(and(eq(tables.users.id, id), ne(tables.users.role, 'guest'))).for('update')
     if (!user) notFound('No such staff member.')
     await tx.update(tables.users).set(patch).where(eq(tables.users.id, id))
+    // A new role or a disabled account ends the person's sign-ins: they sign in again as what they now are.
+    if ((patch.role !== undefined && patch.role !== user.role) || (patch.disabled !== undefined && patch.disabled !== user.disabled)) await endAllSessions(id, tx)
     const [row] = await tx.select().from(tables.users).where(eq(tables.users.id, id))
     return { id: row!.id, name: row!.name, email: row!.email, role: row!.role, disabled: row!.disabled, invitationPending: row!.passwordHash === null }
   })

@@ -9,9 +9,17 @@ import type { z } from 'zod'
 import type { bookingCreateSchema } from '../../../shared/schemas/bookings'
 import { ageOn } from '../../../shared/schemas/auth'
 import { venueContactText } from '../../../shared/venueContact'
+import { PARTY_MAX } from '../../../shared/bookings'
 
-/** Unpaid holds one guest may keep open at once, so that nobody can sit on a venue's seats. */
-const LIVE_HOLDS_PER_GUEST = 3
+/**
+ * What one guest may keep unpaid at once, so that nobody can sit on a venue's seats: at most
+ * UNPAID_HOLDS_PER_GUEST holds, of at most UNPAID_SEATS_PER_GUEST seats together, across sessions;
+ * in one session a guest has one live hold (a second request finds it) of at most PARTY_MAX seats.
+ * Both are counted inside the booking transaction with the guest's own row locked, so requests in
+ * parallel are counted one after another. (Documented in DEVELOPERS.md, "Seat hoarding".)
+ */
+const UNPAID_HOLDS_PER_GUEST = 3
+const UNPAID_SEATS_PER_GUEST = PARTY_MAX
 
 type BookingInput = z.output<typeof bookingCreateSchema>
 
@@ -33,7 +41,8 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
   const venue = await getVenue()
   const db = useDb()
   const { booking: cfg } = useRuntimeConfig()
-  const [account] = await db.select({ dateOfBirth: tables.users.dateOfBirth }).from(tables.users).where(eq(tables.users.id, user.id))
+  const [account] = await db.select({ dateOfBirth: tables.users.dateOfBirth, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id))
+  if (!account?.emailVerifiedAt) addressNotConfirmed(user)
   if (account?.dateOfBirth && account.dateOfBirth !== input.dateOfBirth) {
     invalidFields({ dateOfBirth: `This is not the date of birth on your account. If your account has it wrong, please contact ${venueContactText(venue)}.` })
   }
@@ -49,6 +58,10 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
   const holdMs = Math.max(1, Number(cfg.holdMinutes)) * 60_000
   const b = tables.bookings
   const held = await bookingTransaction(async (tx) => {
+    // The guest's own row first: their requests in parallel queue here, and the unpaid holds they
+    // already have are counted one request at a time.
+    const [me] = await tx.select({ id: tables.users.id, email: tables.users.email, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)).for('update')
+    if (!me?.emailVerifiedAt) addressNotConfirmed(user)
     const session = await lockSessionRow(tx, input.sessionId)
     const [own] = await tx.select().from(b)
       .where(and(eq(b.sessionId, session.id), eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
@@ -67,10 +80,13 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     const closesAt = session.startsAt.getTime() - session.bookingCutoffMinutes * 60_000
     if (now.getTime() >= closesAt) conflict(`Booking for this session closed ${session.bookingCutoffMinutes} minutes before the start. Please choose another session.`)
 
-    const [{ live } = { live: 0 }] = await tx.select({ live: sql<number>`count(*)`.mapWith(Number) }).from(b)
+    const [{ live, seats } = { live: 0, seats: 0 }] = await tx.select({ live: sql<number>`count(*)`.mapWith(Number), seats: sql<number>`coalesce(sum(${b.partySize}), 0)`.mapWith(Number) }).from(b)
       .where(and(eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
-    if (live >= LIVE_HOLDS_PER_GUEST) {
+    if (live >= UNPAID_HOLDS_PER_GUEST) {
       conflict(`You already have ${live} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
+    }
+    if (seats + input.partySize > UNPAID_SEATS_PER_GUEST) {
+      conflict(`You already hold ${seats} unpaid seat${seats === 1 ? '' : 's'}; together with these that would be more than ${UNPAID_SEATS_PER_GUEST}. Finish paying for them, or give some back, first.`)
     }
     const { count, staleCheckouts } = await lockedSeatCount(tx, session, now)
     const left = count.seatsLeft
@@ -79,7 +95,7 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     }
     const values = {
       venueId: venue.id, sessionId: session.id, userId: user.id, reference: newBookingReference(), state: 'held' as const,
-      partySize: input.partySize, contactName: input.contactName, contactEmail: input.contactEmail, contactPhone: input.contactPhone, notes: input.notes ?? null,
+      partySize: input.partySize, contactName: input.contactName, contactEmail: me.email, contactPhone: input.contactPhone, notes: input.notes ?? null,
       ageConfirmed: input.ageConfirmed, unitPriceMinor: session.priceMinor, amountMinor: session.priceMinor * input.partySize,
       currency: session.currency, holdExpiresAt: new Date(now.getTime() + holdMs),
     }
@@ -112,6 +128,11 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     })
     throw paymentUnavailable()
   }
+}
+
+/** 403 for a guest who has not confirmed their address yet: what to do is on the booking page. */
+function addressNotConfirmed(user: CurrentUser): never {
+  throw createError({ status: 403, statusText: 'Address not confirmed', message: `Confirm your e-mail address first: open the link we sent to ${user.email}. You can ask for a new link on this page.`, data: { reason: 'address_not_confirmed' } })
 }
 
 const paymentUnavailable = () => createError({ status: 503, statusText: 'Payment unavailable', message: 'We could not reach the payment service, so nothing was booked and nothing was charged. Please try again in a few minutes.' })

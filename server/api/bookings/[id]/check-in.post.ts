@@ -6,7 +6,7 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const input = await readBodyAs(event, checkInSchema)
   const { user, venue, session } = await requireSessionHost(event, await bookingSessionId(id))
-  assertSessionDay(session, venue)
+  assertSessionDay(session, venue, user)
   await bookingTransaction(async (tx) => {
     const { booking } = await lockBookingWithSession(tx, id)
     if (input.seated > booking.partySize) invalidFields({ seated: `At most ${booking.partySize}.` }, `This party booked ${booking.partySize}.`)

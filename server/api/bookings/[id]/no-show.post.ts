@@ -5,6 +5,7 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const { user, session } = await requireSessionHost(event, await bookingSessionId(id))
   if (new Date() < session.startsAt) conflict('A party can be marked as not coming only after the session has started.')
+  assertDoorOpen(session, user)
   await bookingTransaction(async (tx) => {
     const { booking } = await lockBookingWithSession(tx, id)
     await decideAtDoor(tx, booking, user.id, { event: 'no_show', seated: 0, idsSeen: 0 })

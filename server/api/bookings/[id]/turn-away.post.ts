@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const { reason } = await readBodyAs(event, turnAwaySchema)
   const { user, venue, session } = await requireSessionHost(event, await bookingSessionId(id))
-  assertSessionDay(session, venue)
+  assertSessionDay(session, venue, user)
   await bookingTransaction(async (tx) => {
     const { booking } = await lockBookingWithSession(tx, id)
     await decideAtDoor(tx, booking, user.id, { event: 'turn_away', seated: 0, idsSeen: 0, reason })

@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const input = await readBodyAs(event, walkInSchema)
   const { user, venue, session } = await requireSessionHost(event, id)
-  assertSessionDay(session, venue)
+  assertSessionDay(session, venue, user)
   const { bookingId, staleCheckouts } = await bookingTransaction(async (tx) => {
     const locked = await lockSessionRow(tx, id)
     const now = new Date()
