@@ -7,7 +7,7 @@ import { eq, inArray } from 'drizzle-orm'
  * left, so guessing is slow and the user knows when to try again.
  */
 export function throttleKeys(event: H3Event, email: string): { account: string, ip: string } {
-  const ip = getRequestIP(event, { xForwardedFor: useRuntimeConfig().trustProxy }) ?? 'unknown'
+  const ip = clientAddress(event)
   return { account: `account:${email}`, ip: `ip:${ip}` }
 }
 
