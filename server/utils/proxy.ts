@@ -6,7 +6,7 @@ import type { H3Event } from 'h3'
  * address is that many entries from the right; everything to its left was written by the client and
  * proves nothing. 0 means the header is not read at all (the socket's address is the client's).
  */
-export function trustedProxyHops(): number {
+function trustedProxyHops(): number {
   const hops = Number(useRuntimeConfig().trustedProxyHops)
   return Number.isInteger(hops) && hops > 0 ? hops : 0
 }

@@ -16,7 +16,7 @@ const KNOWN_SECRETS = new Set([
 /** Words that mark a value someone meant to replace. */
 const PLACEHOLDER = /change[-_ ]?me|example|placeholder|from[-_ ]the[-_ ]|your[-_ ]secret/i
 /** Shortest secret accepted, characters: 32 random characters are about 190 bits (common practice, no source). */
-export const SECRET_MIN_LENGTH = 32
+const SECRET_MIN_LENGTH = 32
 
 export interface SecretSettings {
   sessionPassword: string

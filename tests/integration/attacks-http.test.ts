@@ -1,7 +1,6 @@
 import { request as httpRequest } from 'node:http'
-import { readdirSync } from 'node:fs'
 import { resolve } from 'node:path'
-import { readFileSync } from 'node:fs'
+import { readdirSync, readFileSync } from 'node:fs'
 import { describe, expect, inject, it } from 'vitest'
 import sharp from 'sharp'
 import Stripe from 'stripe'
@@ -218,7 +217,7 @@ describe('attacks on the HTTP surface, second round (issue 16)', () => {
       [{ origin: `${site.protocol}//${site.hostname}:${Number(site.port) + 1}` }, 403], // other port
       [{ referer: 'https://evil.example/page' }, 403],
       [{ referer: `${site.origin}/signin` }, 401],
-      [{ origin: 'https://evil.example', 'x-forwarded-host': 'evil.example' }, 403],
+      [{ 'origin': 'https://evil.example', 'x-forwarded-host': 'evil.example' }, 403],
     ]
     for (const [headers, status] of tries) {
       expect((await c.request('POST', '/api/auth/signin', body, headers)).status, JSON.stringify(headers)).toBe(status)
