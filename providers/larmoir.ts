@@ -1,5 +1,5 @@
 import { defineProvider } from '@nuxt/image/runtime'
-import { snapImageWidth } from '#shared/content'
+import { snapImageWidth } from '../shared/content'
 
 /**
  * @nuxt/image provider for the venue's uploaded images: the server's /media route resizes and

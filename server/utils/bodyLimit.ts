@@ -45,7 +45,7 @@ export async function readBodyWithinLimit(event: H3Event): Promise<void> {
     bodyTooLarge(event)
   }
   const declared = Number(req.headers['content-length'] ?? 0)
-  if (declared > limit) refuse()
+  if (declared > limit) return refuse()
   const chunked = /\bchunked\b/i.test(String(req.headers['transfer-encoding'] ?? ''))
   if (!declared && !chunked) return
   const body = await new Promise<Buffer | null>((done, fail) => {
@@ -74,7 +74,7 @@ export async function readBodyWithinLimit(event: H3Event): Promise<void> {
     }
     req.on('data', onData).on('end', onEnd).on('error', onError)
   })
-  if (!body) refuse()
+  if (!body) return refuse()
   req[RAW_BODY] = Promise.resolve(body)
 }
 
