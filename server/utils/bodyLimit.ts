@@ -28,10 +28,27 @@ export function bodyTooLarge(event: H3Event): never {
 }
 
 /**
+ * After a refusal, what the client still sends is thrown away as it arrives (never kept), so that a
+ * browser finishing an oversize upload reads the 413 instead of a broken connection; past this many
+ * bytes the connection is cut (common practice, no source).
+ */
+const DISCARD_MAX_BYTES = 16 * 1024 * 1024
+
+function discardThenCut(req: H3Event['node']['req']): void {
+  let discarded = 0
+  req.removeAllListeners('data')
+  req.on('data', (chunk: Buffer) => {
+    discarded += chunk.length
+    if (discarded > DISCARD_MAX_BYTES) req.socket.destroy()
+  })
+  req.resume()
+}
+
+/**
  * Reads the request body, counting bytes as they arrive, and stops at the path's limit: a declared
  * Content-Length over it is refused before a byte is read, and a body with no length (chunked) is
- * refused as soon as it passes the limit. Either way the rest is not read: the connection is closed
- * after the 413, so a client cannot make the server hold more than the limit in memory.
+ * refused as soon as it passes the limit. Nothing past the limit is kept in memory: the rest is
+ * thrown away as it arrives, and the connection cut after DISCARD_MAX_BYTES more.
  * What was read is left where h3's readRawBody finds it, so routes read their body as usual.
  */
 export async function readBodyWithinLimit(event: H3Event): Promise<void> {
@@ -39,9 +56,7 @@ export async function readBodyWithinLimit(event: H3Event): Promise<void> {
   const req = event.node.req as typeof event.node.req & { [RAW_BODY]?: Promise<Buffer> }
   const limit = bodyLimitFor(event.path)
   const refuse = (): never => {
-    setResponseHeader(event, 'connection', 'close')
-    req.pause()
-    event.node.res.once('finish', () => req.socket.destroy())
+    discardThenCut(req)
     bodyTooLarge(event)
   }
   const declared = Number(req.headers['content-length'] ?? 0)
@@ -54,7 +69,6 @@ export async function readBodyWithinLimit(event: H3Event): Promise<void> {
     const onData = (chunk: Buffer) => {
       bytes += chunk.length
       if (bytes > limit) {
-        req.pause()
         stop()
         done(null)
         return

@@ -73,7 +73,7 @@ describe('holding seats and paying', () => {
     const qr = await guest.client.raw(`/bookings/${res.body.booking.id}/qr.svg`)
     expect(qr.status).toBe(200)
     expect(qr.headers.get('content-type')).toBe('image/svg+xml; charset=utf-8')
-    expect(qr.headers.get('cache-control')).toBe('private, max-age=3600')
+    expect(qr.headers.get('cache-control')).toBe('no-store') // a private download: kept by no cache (RFC 9111 §5.2.2.5)
     expect(await qr.text()).toContain('<svg')
   })
 
