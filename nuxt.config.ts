@@ -1,4 +1,6 @@
 // Larmoir: one Nuxt app, root layout (no app/ folder), Nitro server routes under server/.
+import { IMAGE_WIDTHS } from './shared/content'
+
 export default defineNuxtConfig({
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxt/image', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -113,7 +115,7 @@ export default defineNuxtConfig({
     quality: 80,
     format: ['webp'],
     provider: 'larmoir',
-    providers: { larmoir: { provider: '~/providers/larmoir.ts' } },
+    providers: { larmoir: { provider: '~/providers/larmoir.ts', options: { widths: IMAGE_WIDTHS } } },
     screens: { sm: 390, md: 768, lg: 1024, card: 600 },
   },
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },

@@ -19,7 +19,7 @@ export const IMAGE_MAX_PIXELS = 40_000_000
  * wants (1× and 2× of every `sizes` on the pages, 1200 for link previews), and the server snaps any
  * other width up the same way, so a stranger cannot fill the disk with odd sizes.
  */
-const IMAGE_WIDTHS = [64, 96, 128, 160, 192, 256, 320, 400, 480, 640, 800, 1024, 1200, 1600, 2400] as const
+export const IMAGE_WIDTHS = [64, 96, 128, 160, 192, 256, 320, 400, 480, 640, 800, 1024, 1200, 1600, 2400] as const
 export const IMAGE_VARIANT_QUALITY = { webp: 80, jpeg: 82 } as const
 export type ImageVariantFormat = keyof typeof IMAGE_VARIANT_QUALITY
 
