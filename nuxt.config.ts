@@ -1,4 +1,6 @@
 // Larmoir: one Nuxt app, root layout (no app/ folder), Nitro server routes under server/.
+import { IMAGE_WIDTHS } from './shared/content'
+
 export default defineNuxtConfig({
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@nuxt/image', '@nuxt/eslint'],
   devtools: { enabled: false },
@@ -21,13 +23,19 @@ export default defineNuxtConfig({
     demoSeed: false,
     // Read at start-up by server/plugins/startup.ts, relative to the working directory.
     migrationsDir: 'server/db/migrations',
-    trustProxy: false,
+    // How many proxies of your own stand in front of the server; 0 = X-Forwarded-* are not read
+    // (server/utils/proxy.ts).
+    trustedProxyHops: 0,
     smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Larmoir <no-reply@larmoir.test>' },
     throttle: { accountMax: 5, ipMax: 30, windowMinutes: 15, maxDelayMinutes: 15 },
     tokens: { inviteHours: 72, resetMinutes: 60, verifyHours: 48 },
     outboxIntervalSeconds: 15,
     /** Where uploaded images live: outside the code tree, git-ignored; relative to the working directory. */
     uploadDir: '.data/uploads',
+    // Resized copies of uploads (server/utils/imageVariants.ts): the cache's bound (files and MB,
+    // least recently served dropped first), resizes running at once, and new sizes a client may
+    // cause a minute.
+    images: { cacheMaxFiles: 3000, cacheMaxMegabytes: 512, resizesAtOnce: 2, missesPerMinute: 120 },
     // Payments through Stripe Checkout. Production sets only the two keys; the local fake also sets
     // apiHost/apiPort/apiProtocol (NUXT_STRIPE_API_HOST, …) so the official SDK talks to it instead.
     stripe: { secretKey: '', webhookSecret: '', apiHost: '', apiPort: '', apiProtocol: '', checkoutOrigin: 'https://checkout.stripe.com' },
@@ -80,6 +88,19 @@ export default defineNuxtConfig({
   vite: { server: { hmr: { host: '127.0.0.1' } } },
   typescript: { strict: true, typeCheck: false },
   hooks: {
+    // The routes the server has and the methods each answers, for the 405 answer with its Allow
+    // header (server/middleware/03.method-allowed.ts); read from Nitro's own scan of server/api and
+    // server/routes when the server is bundled.
+    'nitro:init'(nitro) {
+      nitro.options.virtual['#larmoir/route-methods'] = () => {
+        const methods: Record<string, string[]> = {}
+        for (const h of nitro.scannedHandlers) {
+          if (!h.route || !h.method || h.middleware) continue
+          ;(methods[h.route] ??= []).push(h.method.toUpperCase())
+        }
+        return `export default ${JSON.stringify(methods)}`
+      }
+    },
     // A database that is down answers 503 on every route; Nuxt's own handler takes every other error.
     'nitro:config'(config) {
       const theirs = config.errorHandler
@@ -94,7 +115,7 @@ export default defineNuxtConfig({
     quality: 80,
     format: ['webp'],
     provider: 'larmoir',
-    providers: { larmoir: { provider: '~/providers/larmoir.ts' } },
+    providers: { larmoir: { provider: '~/providers/larmoir.ts', options: { widths: IMAGE_WIDTHS } } },
     screens: { sm: 390, md: 768, lg: 1024, card: 600 },
   },
   tailwindcss: { cssPath: false, configPath: 'tailwind.config.ts' },

@@ -13,6 +13,7 @@ import * as chromeLauncher from 'chrome-launcher'
 import lighthouse from 'lighthouse'
 import { databaseUrl, resetDatabase, startDb, stopDb, type DbInstance } from '../scripts/lib/mariadb'
 import { startApp } from '../scripts/lib/app'
+import { localSecrets } from '../scripts/lib/secrets'
 
 const BENCH_DB: DbInstance = { name: 'bench-db', port: 3419, database: 'larmoir_bench', user: 'larmoir', password: 'larmoir' }
 const PORT = 3198
@@ -30,7 +31,7 @@ async function main() {
   const app = await startApp({
     port: PORT,
     logFile: resolve(root, '.data/app-bench.log'),
-    env: { NUXT_APP_URL: base, NUXT_DEMO_SEED: 'true', NUXT_DATABASE_URL: databaseUrl(BENCH_DB), NUXT_SESSION_PASSWORD: 'bench-only-session-password-at-least-32-characters' },
+    env: { NUXT_APP_URL: base, NUXT_DEMO_SEED: 'true', NUXT_DATABASE_URL: databaseUrl(BENCH_DB), NUXT_SESSION_PASSWORD: localSecrets('bench').sessionPassword },
   })
   const chrome = await chromeLauncher.launch({ chromePath: '/usr/bin/chromium', chromeFlags: FLAGS })
   try {

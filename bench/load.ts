@@ -15,7 +15,7 @@ import { databaseUrl, resetDatabase, startDb, stopDb, type DbInstance } from '..
 import { startApp } from '../scripts/lib/app'
 import { startMailFake } from '../scripts/fakes/mail'
 import { startStripeFake } from '../scripts/fakes/stripe'
-import { LOCAL_STRIPE_SECRET_KEY, LOCAL_STRIPE_WEBHOOK_SECRET } from '../scripts/lib/stack'
+import { localSecrets } from '../scripts/lib/secrets'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../server/demo/data'
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10)
@@ -55,15 +55,15 @@ async function main() {
   await startDb(BENCH_DB)
   resetDatabase(BENCH_DB)
   const mail = await startMailFake({ smtpPort: PORTS.smtp, httpPort: PORTS.mailHttp, dir: resolve(root, '.data/mail-bench') })
-  const stripe = await startStripeFake({ port: PORTS.stripe, webhookUrl: `${base}/webhooks/stripe`, webhookSecret: LOCAL_STRIPE_WEBHOOK_SECRET, publicUrl: `http://127.0.0.1:${PORTS.stripe}` })
+  const stripe = await startStripeFake({ port: PORTS.stripe, webhookUrl: `${base}/webhooks/stripe`, webhookSecret: localSecrets('bench').stripeWebhookSecret, publicUrl: `http://127.0.0.1:${PORTS.stripe}` })
   const app = await startApp({
     port: PORTS.app,
     logFile: resolve(root, '.data/app-bench.log'),
     env: {
-      NUXT_APP_URL: base, NUXT_DEMO_SEED: 'true', NUXT_TRUST_PROXY: 'true',
-      NUXT_SESSION_PASSWORD: 'bench-only-session-password-at-least-32-characters',
+      NUXT_APP_URL: base, NUXT_DEMO_SEED: 'true', NUXT_TRUSTED_PROXY_HOPS: '1',
+      NUXT_SESSION_PASSWORD: localSecrets('bench').sessionPassword,
       NUXT_DATABASE_URL: databaseUrl(BENCH_DB), NUXT_SMTP_HOST: '127.0.0.1', NUXT_SMTP_PORT: String(PORTS.smtp),
-      NUXT_STRIPE_SECRET_KEY: LOCAL_STRIPE_SECRET_KEY, NUXT_STRIPE_WEBHOOK_SECRET: LOCAL_STRIPE_WEBHOOK_SECRET,
+      NUXT_STRIPE_SECRET_KEY: localSecrets('bench').stripeSecretKey, NUXT_STRIPE_WEBHOOK_SECRET: localSecrets('bench').stripeWebhookSecret,
       NUXT_STRIPE_API_HOST: '127.0.0.1', NUXT_STRIPE_API_PORT: String(PORTS.stripe), NUXT_STRIPE_API_PROTOCOL: 'http',
       NUXT_STRIPE_CHECKOUT_ORIGIN: `http://127.0.0.1:${PORTS.stripe}`,
     },

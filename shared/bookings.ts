@@ -76,7 +76,7 @@ export const BOOKING_END_REASON_LABELS: Record<BookingEndReason, string> = {
   hold_released: 'Seats given back before paying',
   hold_expired: 'Time to pay ran out',
   checkout_failed: 'Payment service unavailable',
-  late_payment_no_seats: 'Paid after the time ran out; seats gone, refunded',
+  late_payment_no_seats: 'Paid after the time to pay or to book ran out; refunded',
 }
 
 /**
@@ -100,7 +100,7 @@ export function bookingEndWords(reason: BookingEndReason, paid: boolean): { titl
         ? { title: 'Cancelled', text: 'You cancelled this booking, so your payment is refunded in full.' }
         : { title: 'Cancelled', text: 'You cancelled this booking. Nothing was paid, so there is nothing to refund.' }
     case 'late_payment_no_seats':
-      return { title: 'Paid too late', text: 'Your payment arrived after the time to pay had run out and the seats had gone to other guests, so the booking could not go ahead. Your payment is refunded in full.' }
+      return { title: 'Paid too late', text: 'Your payment arrived after the time to pay or to book this session had run out, so the booking could not go ahead. Your payment is refunded in full.' }
   }
 }
 

@@ -4,6 +4,7 @@ import { DEV_DB, TEST_DB, databaseUrl, resetDatabase, startDb, type DbInstance }
 import { startMailFake, type MailFake } from '../fakes/mail'
 import { startStripeFake, type StripeFake } from '../fakes/stripe'
 import { startApp, type RunningApp } from './app'
+import { localSecrets } from './secrets'
 
 /**
  * Everything the app needs on one machine: MariaDB, the e-mail fake, the Stripe fake and the built
@@ -21,13 +22,6 @@ export interface StackProfile {
   env: Record<string, string>
 }
 
-/**
- * Test-mode keys for the local Stripe fake only (it accepts any sk_test_ key and signs webhooks
- * with this secret). Production sets its own NUXT_STRIPE_SECRET_KEY and NUXT_STRIPE_WEBHOOK_SECRET.
- */
-export const LOCAL_STRIPE_SECRET_KEY = 'sk_test_larmoir_local_fake'
-export const LOCAL_STRIPE_WEBHOOK_SECRET = 'whsec_larmoir_local_fake'
-
 export const DEMO_PROFILE: StackProfile = {
   name: 'demo',
   db: DEV_DB,
@@ -39,7 +33,7 @@ export const DEMO_PROFILE: StackProfile = {
   env: {
     NUXT_APP_URL: 'http://localhost:3000',
     NUXT_DEMO_SEED: 'true',
-    NUXT_SESSION_PASSWORD: 'demo-only-session-password-change-me-in-production',
+    NUXT_SESSION_PASSWORD: localSecrets('demo').sessionPassword,
   },
 }
 
@@ -57,10 +51,13 @@ export const TEST_PROFILE: StackProfile = {
   env: {
     NUXT_APP_URL: `http://127.0.0.1:${3100 + offset}`,
     NUXT_DEMO_SEED: 'true',
-    NUXT_TRUST_PROXY: 'true',
+    // Each test client claims its own address in X-Forwarded-For, as if one proxy of ours passed it on.
+    NUXT_TRUSTED_PROXY_HOPS: '1',
     NUXT_OUTBOX_INTERVAL_SECONDS: '1',
     NUXT_BOOKING_SWEEP_SECONDS: '1',
-    NUXT_SESSION_PASSWORD: 'test-only-session-password-at-least-32-characters',
+    NUXT_SESSION_PASSWORD: localSecrets('test').sessionPassword,
+    // A small bound on resized images, so the attack suite can fill it (tests/integration/attacks-http.test.ts).
+    NUXT_IMAGES_CACHE_MAX_FILES: '40',
   },
 }
 
@@ -71,13 +68,14 @@ export async function startStack(profile: StackProfile, opts: { freshDatabase?: 
   mkdirSync(dataDir, { recursive: true })
   await startDb(profile.db)
   if (opts.freshDatabase) resetDatabase(profile.db)
+  const secrets = localSecrets(profile.name)
   const mail = await startMailFake({ smtpPort: profile.smtpPort, httpPort: profile.mailHttpPort, dir: resolve(dataDir, `mail-${profile.name}`) })
   let stripe: StripeFake
   try {
     stripe = await startStripeFake({
       port: profile.stripePort,
       webhookUrl: `http://127.0.0.1:${profile.appPort}/webhooks/stripe`,
-      webhookSecret: LOCAL_STRIPE_WEBHOOK_SECRET,
+      webhookSecret: secrets.stripeWebhookSecret,
       publicUrl: profile.stripePublicUrl,
     })
   }
@@ -95,8 +93,8 @@ export async function startStack(profile: StackProfile, opts: { freshDatabase?: 
         NUXT_DATABASE_URL: databaseUrl(profile.db),
         NUXT_SMTP_HOST: '127.0.0.1',
         NUXT_SMTP_PORT: String(profile.smtpPort),
-        NUXT_STRIPE_SECRET_KEY: LOCAL_STRIPE_SECRET_KEY,
-        NUXT_STRIPE_WEBHOOK_SECRET: LOCAL_STRIPE_WEBHOOK_SECRET,
+        NUXT_STRIPE_SECRET_KEY: secrets.stripeSecretKey,
+        NUXT_STRIPE_WEBHOOK_SECRET: secrets.stripeWebhookSecret,
         NUXT_STRIPE_API_HOST: '127.0.0.1',
         NUXT_STRIPE_API_PORT: String(profile.stripePort),
         NUXT_STRIPE_API_PROTOCOL: 'http',

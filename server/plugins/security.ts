@@ -6,10 +6,14 @@ import { randomBytes } from 'node:crypto'
  * Styles allow 'unsafe-inline' — Vue's `:style` bindings (meters, progress bars) and the card print
  * page's `@page` rule are inline styles; scripts never are. Payment opens Stripe Checkout by
  * navigation, and form-action names its origin too (`stripe.checkoutOrigin`).
- * The other security headers are route rules in nuxt.config.ts.
+ * The other security headers are route rules in nuxt.config.ts and server/middleware/02.response-headers.ts;
+ * the renderer's X-Powered-By is removed (it tells a stranger what to try first).
  */
 export default defineNitroPlugin((nitro) => {
   if (import.meta.dev) return
+  nitro.hooks.hook('render:response', (response) => {
+    if (response.headers) delete response.headers['x-powered-by']
+  })
   nitro.hooks.hook('render:html', (html, { event }) => {
     const nonce = randomBytes(16).toString('base64')
     const tag = (s: string) => s.replace(/<script(?![^>]*\snonce=)/g, `<script nonce="${nonce}"`)

@@ -148,10 +148,10 @@ export function refundEmail(c: BookingMailContext): MailMessage {
   ])
 }
 
-/** The payment arrived after the hold ran out and the seats had gone to other guests. */
+/** The payment arrived after the hold ran out, the session's booking cut-off or its start. */
 export function latePaymentRefundEmail(c: BookingMailContext, reason: string): MailMessage {
   return bookingMail(c, `We could not keep your seats: booking ${c.booking.reference} refunded`, 'We could not keep your seats', [
-    { kind: 'text', text: `Your payment reached us after the time to pay had run out, and ${reason}. So the booking could not go ahead, and we are refunding ${money(c, c.booking.amountPaidMinor)} in full to the card you paid with.` },
+    { kind: 'text', text: `Your payment reached us after the time to pay or to book had run out, and ${reason}. So the booking could not go ahead, and we are refunding ${money(c, c.booking.amountPaidMinor)} in full to the card you paid with.` },
     { kind: 'facts', rows: whereAndWhen(c) },
     { kind: 'action', label: 'See other sessions', href: appLink('/flights') },
   ])

@@ -62,13 +62,42 @@ export async function sessionCards(venue: Venue, session: TastingSession, names:
 }
 
 export interface CardJob { id: string, ownerId: number, status: 'running' | 'done' | 'failed', done: number, total: number, pdf?: Buffer, error?: string, fileName: string, createdAt: number }
+/**
+ * Print jobs live in this server process's memory, not in the database: a restart forgets them, and
+ * with several server processes a job is found only on the one that made it. So that memory stays
+ * bounded, each person keeps at most CARD_JOBS_PER_USER jobs and the process CARD_JOBS_MAX; a new job
+ * pushes out its owner's (then anyone's) oldest finished one, and is refused (429) while the bound is
+ * all running jobs. Finished or not, a job is dropped CARD_JOB_TTL_MS after it started.
+ */
 const jobs = new Map<string, CardJob>()
+const CARD_JOBS_PER_USER = 3
+const CARD_JOBS_MAX = 20
 /** Finished PDFs are kept this long for download, then dropped. */
-const JOB_TTL_MS = 15 * 60_000
+const CARD_JOB_TTL_MS = 15 * 60_000
+
+function dropExpiredJobs(now = Date.now()): void {
+  for (const [k, j] of jobs) if (now - j.createdAt > CARD_JOB_TTL_MS) jobs.delete(k)
+}
+
+/** Makes room for one more job among `pool` (oldest first, as the Map keeps them), or says why not. */
+function makeRoom(pool: CardJob[], bound: number): boolean {
+  const finished = pool.filter(j => j.status !== 'running')
+  while (pool.length >= bound && finished.length) {
+    const oldest = finished.shift()!
+    jobs.delete(oldest.id)
+    pool.splice(pool.indexOf(oldest), 1)
+  }
+  return pool.length < bound
+}
 
 /** Starts making a session's cards as one PDF in the background; progress is read from the job. */
 export function startCardJob(ownerId: number, cards: FlightCard[], paper: CardPaper, fileName: string): CardJob {
-  for (const [k, j] of jobs) if (Date.now() - j.createdAt > JOB_TTL_MS) jobs.delete(k)
+  dropExpiredJobs()
+  const busy = (message: string): never => {
+    throw createError({ status: 429, statusText: 'Too many print jobs', message, data: { retryAfterSeconds: 10 } })
+  }
+  if (!makeRoom([...jobs.values()].filter(j => j.ownerId === ownerId), CARD_JOBS_PER_USER)) busy(`You already have ${CARD_JOBS_PER_USER} print jobs running; wait for one to finish.`)
+  if (!makeRoom([...jobs.values()], CARD_JOBS_MAX)) busy('The server is printing as many jobs as it takes at once; try again in a moment.')
   const job: CardJob = { id: randomUUID(), ownerId, status: 'running', done: 0, total: cards.length, fileName, createdAt: Date.now() }
   jobs.set(job.id, job)
   void (async () => {
@@ -85,7 +114,8 @@ export function startCardJob(ownerId: number, cards: FlightCard[], paper: CardPa
 }
 
 export function findCardJob(id: string, user: CurrentUser): CardJob {
+  dropExpiredJobs()
   const job = jobs.get(id)
-  if (!job || (job.ownerId !== user.id && user.role !== 'manager')) notFound('No such print job (finished ones are kept for 15 minutes).')
+  if (!job || (job.ownerId !== user.id && user.role !== 'manager')) notFound(`No such print job (a job is kept for ${CARD_JOB_TTL_MS / 60_000} minutes, and only your ${CARD_JOBS_PER_USER} newest).`)
   return job
 }

@@ -4,7 +4,7 @@ import { resolve } from 'node:path'
 import { fileTypeFromBuffer } from 'file-type'
 import sharp from 'sharp'
 import { and, asc, eq, inArray } from 'drizzle-orm'
-import { IMAGE_MAX_BYTES, IMAGE_TYPES, type ImageRole } from '../../shared/content'
+import { IMAGE_MAX_BYTES, IMAGE_MAX_PIXELS, IMAGE_TYPES, type ImageRole } from '../../shared/content'
 import type { ImageView } from '../../shared/types/content'
 
 /** Longest side kept after upload, px: plenty for a phone screen or a printed card. */
@@ -30,7 +30,13 @@ export async function storeImage(data: Buffer, meta: { venueId: number, productI
   if (!mime || !IMAGE_TYPES.includes(mime)) {
     throw createError({ status: 415, statusText: 'Not an image we take', message: 'Upload a JPEG, PNG or WebP image. The file\'s contents were checked, not its name.', data: { fields: { file: 'Only JPEG, PNG or WebP.' } } })
   }
-  let pipeline = sharp(data, { failOn: 'error', limitInputPixels: 60_000_000 }).rotate().resize({ width: MAX_SIDE_PX, height: MAX_SIDE_PX, fit: 'inside', withoutEnlargement: true })
+  // The header is read before any pixel is decoded, so an image too large to decode costs nothing.
+  const size = await sharp(data).metadata().catch(() => null)
+  if (size?.width && size.height && size.width * size.height > IMAGE_MAX_PIXELS) {
+    const mp = (size.width * size.height / 1e6).toFixed(1)
+    tooLarge(`This image is ${size.width} × ${size.height} (${mp} megapixels); at most ${IMAGE_MAX_PIXELS / 1e6} megapixels. Export it smaller and upload again.`, { file: `At most ${IMAGE_MAX_PIXELS / 1e6} megapixels.` })
+  }
+  let pipeline = sharp(data, { failOn: 'error', limitInputPixels: IMAGE_MAX_PIXELS }).rotate().resize({ width: MAX_SIDE_PX, height: MAX_SIDE_PX, fit: 'inside', withoutEnlargement: true })
   pipeline = mime === 'image/png' ? pipeline.png({ compressionLevel: 9 }) : mime === 'image/webp' ? pipeline.webp({ quality: 85 }) : pipeline.jpeg({ quality: 85, mozjpeg: true })
   let out: { data: Buffer, info: sharp.OutputInfo }
   try {
@@ -64,6 +70,7 @@ export async function removeImageFiles(storedName: string): Promise<void> {
   await rm(resolve(dir, storedName), { force: true })
   const cache = resolve(dir, 'cache')
   const stem = storedName.replace(/\.\w+$/, '')
+  forgetVariantsOf(stem)
   for (const f of await readdir(cache).catch(() => [] as string[])) if (f.startsWith(`${stem}-`)) await rm(resolve(cache, f), { force: true })
 }
 

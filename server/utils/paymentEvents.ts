@@ -50,12 +50,14 @@ export async function processStripeEvent(event: Stripe.Event, rawBody: Buffer | 
     }
     let outcome = 'ignored'
     let refund = false
+    let refundIntent: string | null = null
     let staleCheckouts: string[] = []
     if (bookingId === null) outcome = 'no matching booking'
     else if (event.type === 'checkout.session.completed') {
       const cs = event.data.object
       if (cs.payment_status === 'paid') {
-        ({ outcome, refund, staleCheckouts } = await applyBookingPayment(tx, venue, bookingId, { amountPaid: cs.amount_total ?? 0, paymentIntentId: idOf(cs.payment_intent) }))
+        // The event's own time is when the guest paid; a delivery retried later is not a later payment.
+        ({ outcome, refund, refundIntent, staleCheckouts } = await applyBookingPayment(tx, venue, bookingId, { amountPaid: cs.amount_total ?? 0, currency: cs.currency ?? null, paymentIntentId: idOf(cs.payment_intent), paidAt: Number.isFinite(event.created) ? new Date(event.created * 1000) : undefined }))
       }
       else outcome = `checkout complete, payment ${cs.payment_status}`
     }
@@ -76,7 +78,7 @@ export async function processStripeEvent(event: Stripe.Event, rawBody: Buffer | 
       outcome = 'refund noted'
     }
     await tx.update(tables.paymentEvents).set({ outcome }).where(eq(tables.paymentEvents.id, eventRowId))
-    return { duplicate: false, outcome, refund, staleCheckouts }
+    return { duplicate: false, outcome, refund, refundIntent, staleCheckouts }
   })
   kickOutbox()
   void expireCheckoutSessions(result.staleCheckouts)
@@ -84,6 +86,9 @@ export async function processStripeEvent(event: Stripe.Event, rawBody: Buffer | 
     // Our own refund call records the refund from its answer; this covers an answer that was lost.
     const refund = event.data.object
     if (refund.status === 'succeeded' || refund.status === 'pending') await recordBookingRefund(bookingId, { refundId: refund.id, amount: refund.amount })
+  }
+  if (result.refundIntent) {
+    await refundPayment(result.refundIntent).catch(err => console.error(`[payments] refund of payment ${result.refundIntent} failed:`, (err as Error).message))
   }
   if (result.refund && bookingId !== null) {
     await refundBooking(bookingId).catch(err => console.error(`[payments] refund of booking ${bookingId} failed, will retry:`, (err as Error).message))

@@ -1,14 +1,6 @@
 import type { H3Event } from 'h3'
 
 /**
- * The client's address as the per-client limits see it. Behind a proxy you run (`trustProxy`) it
- * comes from X-Forwarded-For; the one place to change how that header is read.
- */
-export function clientAddress(event: H3Event): string {
-  return getRequestIP(event, { xForwardedFor: useRuntimeConfig().trustProxy }) ?? 'unknown'
-}
-
-/**
  * Request budgets kept in this process's memory: `max` uses per key in a sliding `windowMs`. The
  * map is pruned as it goes and capped (MAX_KEYS), oldest first, so a flood of new keys cannot grow
  * it without end. The app runs as one process; several would

@@ -23,13 +23,20 @@ async function parseWith<S extends z.ZodType>(schema: S, value: unknown): Promis
 const FORBIDDEN_TEXT = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u202A-\u202E\u2066-\u2069]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/
 const TEXT_MESSAGE = 'Remove the control or text-direction characters from this text.'
 
-/** The path of the first string in `value` that holds a forbidden character, or null. */
-function forbiddenTextAt(value: unknown, path: string[] = []): string | null {
-  if (typeof value === 'string') return FORBIDDEN_TEXT.test(value) ? (path.join('.') || '_') : null
-  if (value && typeof value === 'object') {
-    for (const [k, v] of Object.entries(value)) {
-      const hit = forbiddenTextAt(v, [...path, k])
-      if (hit) return hit
+/**
+ * The path of the first string in `value` that holds a forbidden character, or null. Walked with a
+ * stack of its own, not by recursion, so no depth of nesting can exhaust the call stack.
+ */
+function forbiddenTextAt(value: unknown): string | null {
+  const stack: Array<[unknown, string[]]> = [[value, []]]
+  while (stack.length) {
+    const [v, path] = stack.pop()!
+    if (typeof v === 'string') {
+      if (FORBIDDEN_TEXT.test(v)) return path.join('.') || '_'
+    }
+    else if (v && typeof v === 'object') {
+      const entries = Object.entries(v)
+      for (let i = entries.length - 1; i >= 0; i--) stack.push([entries[i]![1], [...path, entries[i]![0]]])
     }
   }
   return null
@@ -43,14 +50,15 @@ function refuseForbiddenText(value: unknown): void {
 const notJson = (): never => invalidFields({ _: 'The request body is not valid JSON.' })
 
 /**
- * Reads and validates the JSON body. Over the route's size limit → 413; malformed JSON, forbidden
- * characters and failed checks → 400 per field.
+ * Reads and validates the JSON body. Over the route's size limit → 413; nested deeper than
+ * JSON_MAX_DEPTH, malformed JSON, forbidden characters and failed checks → 400 per field.
  */
 export async function readBodyAs<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.output<S>> {
   const raw = await readRawBody(event, 'utf8')
   if (raw && Buffer.byteLength(raw) > bodyLimitFor(event.path)) bodyTooLarge(event)
   let body: unknown = {}
   if (raw && raw.trim()) {
+    if (jsonDepth(raw, JSON_MAX_DEPTH) > JSON_MAX_DEPTH) invalidFields({ _: `The request nests lists and objects more than ${JSON_MAX_DEPTH} levels deep; no form here sends that.` })
     try { body = JSON.parse(raw) }
     catch { notJson() }
   }

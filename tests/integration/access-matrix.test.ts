@@ -283,6 +283,19 @@ describe('access matrix', () => {
     }
   })
 
+  it('every guarded route, called signed out with an empty body and an unknown id, answers 401 before it reads either', async () => {
+    // One row per guarded route above (anonymous → 401): its address with every parameter unknown.
+    const unknown: Record<string, string> = { id: '999999999', jobId: '00000000-0000-4000-8000-000000000000', reference: 'ZZZZZZZZZZ', date: '2099-12-31', kind: 'product_note', subject: '999999999', position: '99', slug: 'no-such-article' }
+    const guarded = ROUTES.filter(r => r.expect.anonymous === 401 && r.expect.manager !== 401) // not sign-in itself, which says 401 to everyone
+    expect(guarded.length).toBeGreaterThan(40)
+    for (const row of guarded) {
+      const [method, template] = row.route.split(' ') as [string, string]
+      const path = template.replace(/\[(\w+)\]/g, (_, name: string) => unknown[name] ?? 'unknown')
+      const res = await new Client().request(method, path, method === 'GET' ? undefined : {})
+      expect(res.status, `${row.route} as ${path}`).toBe(401)
+    }
+  })
+
   it('has one row for every route file, and no row for a route that does not exist', () => {
     const inTable = [...new Set(ROUTES.map(r => r.route))].sort()
     expect(inTable).toEqual(routeFiles())

@@ -8,9 +8,11 @@ import {
   bookAndPay, bookingBody, bookingRow, checkoutIdOf, fakeEvents, fakeStripe, newGuest, newSession, outboxRows, payCheckout,
   seatsLeft, setStripeFault, signedIn, waitFor, waitForEvent, waitForState,
 } from '../support/booking'
-import { LOCAL_STRIPE_WEBHOOK_SECRET } from '../../scripts/lib/stack'
+import { localSecrets } from '../../scripts/lib/secrets'
 import { TEST_CARD_DECLINE } from '../../scripts/fakes/stripe'
 import { DEMO_VENUE } from '../../server/demo/data'
+
+const LOCAL_STRIPE_WEBHOOK_SECRET = localSecrets('test').stripeWebhookSecret
 
 let manager: Client
 beforeAll(async () => { manager = await signedIn('manager@saltmarsh.test') })
@@ -71,7 +73,7 @@ describe('holding seats and paying', () => {
     const qr = await guest.client.raw(`/bookings/${res.body.booking.id}/qr.svg`)
     expect(qr.status).toBe(200)
     expect(qr.headers.get('content-type')).toBe('image/svg+xml; charset=utf-8')
-    expect(qr.headers.get('cache-control')).toBe('private, max-age=3600')
+    expect(qr.headers.get('cache-control')).toBe('no-store') // a private download: kept by no cache (RFC 9111 §5.2.2.5)
     expect(await qr.text()).toContain('<svg')
   })
 
@@ -181,7 +183,7 @@ describe('holds that run out', () => {
     expect(await seatsLeft(session.id)).toBe(6)
   })
 
-  it('a payment that arrives after the hold ran out: confirmed while the seats are free', async () => {
+  it('a payment that arrives after the hold ran out is refunded at once, even while the seats are free', async () => {
     const session = await newSession(manager, { seats: 2 })
     const guest = await newGuest('late-free')
     const res = await guest.client.post('/api/bookings', bookingBody(session.id, guest, 2))
@@ -190,9 +192,13 @@ describe('holds that run out', () => {
     await waitForState(res.body.booking.id, 'expired')
     await setStripeFault(null)
     expect((await payCheckout(checkoutIdOf(res.body.checkoutUrl))).status).toBe(200)
-    const row = await waitForState(res.body.booking.id, 'confirmed')
-    expect(row.amount_paid_minor).toBe(7000)
-    await waitForMail(guest.email, /Booking confirmed/)
+    const row = await waitFor(async () => {
+      const r = await bookingRow(res.body.booking.id)
+      return r.refunded_at ? r : null
+    }, 'the late payment to be refunded')
+    expect(row).toMatchObject({ state: 'expired', end_reason: 'late_payment_no_seats', amount_paid_minor: 7000, amount_refunded_minor: 7000 })
+    expect(await seatsLeft(session.id)).toBe(2)
+    await waitForMail(guest.email, /could not keep your seats/)
   })
 
   it('a payment that arrives after the hold ran out and the seats were taken is refunded, never overbooked', async () => {

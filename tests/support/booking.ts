@@ -5,8 +5,10 @@ import { Client, uniqueEmail, type Reply } from './http'
 import { withDb } from './db'
 import { linkToken, waitForMail } from './mail'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
-import { LOCAL_STRIPE_SECRET_KEY } from '../../scripts/lib/stack'
+import { localSecrets } from '../../scripts/lib/secrets'
 import { TEST_CARD_SUCCESS } from '../../scripts/fakes/stripe'
+
+const LOCAL_STRIPE_SECRET_KEY = localSecrets('test').stripeSecretKey
 
 /** The official SDK pointed at the test profile's Stripe fake, as the app uses it. */
 export function fakeStripe(): Stripe {

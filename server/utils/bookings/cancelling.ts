@@ -79,7 +79,7 @@ export async function recordBookingRefund(bookingId: number, facts: { refundId: 
     }
     else if (booking.state === 'expired') {
       await tx.update(tables.bookings).set(patch).where(eq(tables.bookings.id, booking.id))
-      const reason = session.status === 'cancelled' ? 'the session has been cancelled' : session.startsAt.getTime() <= Date.now() ? 'the session had already started' : 'the seats had gone to other guests'
+      const reason = session.status === 'cancelled' ? 'the session has been cancelled' : session.startsAt.getTime() <= Date.now() ? 'the session had already started' : 'the seats could no longer be kept for you'
       message = latePaymentRefundEmail(await bookingMailContext(venue, { ...booking, ...patch }, session), reason)
     }
     else return false

@@ -3,6 +3,8 @@ import { checkInSchema } from '../../../../shared/schemas/host'
 
 /** A party arrives: seat those whose ID was seen; the booking moves to checked in, and its history says who seated them. */
 export default defineEventHandler(async (event) => {
+  // The role first, before the address or the body is read: a stranger learns nothing from them.
+  await requireRole(event, 'host', 'manager')
   const { id } = await readParamsAs(event, idParam)
   const input = await readBodyAs(event, checkInSchema)
   const { user, venue, session } = await requireSessionHost(event, await bookingSessionId(id))

@@ -6,6 +6,8 @@ import { turnAwaySchema } from '../../../../shared/schemas/host'
  * no-show, which the host can take back until the session ends (undo-door).
  */
 export default defineEventHandler(async (event) => {
+  // The role first, before the address or the body is read: a stranger learns nothing from them.
+  await requireRole(event, 'host', 'manager')
   const { id } = await readParamsAs(event, idParam)
   const { reason } = await readBodyAs(event, turnAwaySchema)
   const { user, venue, session } = await requireSessionHost(event, await bookingSessionId(id))

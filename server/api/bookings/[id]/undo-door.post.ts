@@ -7,6 +7,8 @@ import { undoDoorSchema } from '../../../../shared/schemas/host'
  * no-show the door did not decide, or when walk-ins took the seats.
  */
 export default defineEventHandler(async (event) => {
+  // The role first, before the address or the body is read: a stranger learns nothing from them.
+  await requireRole(event, 'host', 'manager')
   const { id } = await readParamsAs(event, idParam)
   const { reason } = await readBodyAs(event, undoDoorSchema)
   const { user, venue } = await requireSessionHost(event, await bookingSessionId(id))

@@ -5,6 +5,8 @@ import { venueCardPaper } from '../../../../shared/paper'
 
 /** Starts one PDF of a session's cards (one per seated guest); poll the job for progress. */
 export default defineEventHandler(async (event): Promise<CardJobStarted> => {
+  // The role first, before the address or the body is read: a stranger learns nothing from them.
+  await requireRole(event, 'host', 'manager')
   const { id } = await readParamsAs(event, idParam)
   const body = await readBodyAs(event, sessionCardsSchema)
   const { user, venue, session } = await requireSessionHost(event, id)

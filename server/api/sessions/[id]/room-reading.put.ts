@@ -9,6 +9,8 @@ import type { SessionRoomReading } from '../../../../shared/types/host'
  * replaces the last. Cards printed after it assume this air.
  */
 export default defineEventHandler(async (event): Promise<SessionRoomReading> => {
+  // The role first, before the address or the body is read: a stranger learns nothing from them.
+  await requireRole(event, 'host', 'manager')
   const { id } = await readParamsAs(event, idParam)
   const { user, venue, session } = await requireSessionHost(event, id, 'read the room for it')
   const reading = await readBodyAs(event, roomReadingSchema(venue.temperatureUnit))

@@ -6,6 +6,8 @@ import { walkInSchema } from '../../../../shared/schemas/host'
  * the bar), checked in at once. The session row is locked, so a walk-in never takes a booked seat.
  */
 export default defineEventHandler(async (event) => {
+  // The role first, before the address or the body is read: a stranger learns nothing from them.
+  await requireRole(event, 'host', 'manager')
   const { id } = await readParamsAs(event, idParam)
   const input = await readBodyAs(event, walkInSchema)
   const { user, venue, session } = await requireSessionHost(event, id)

@@ -7,6 +7,6 @@ export default defineEventHandler(async (event) => {
   const { id } = await readParamsAs(event, idParam)
   const booking = await loadGuestBooking(user.id, id)
   setResponseHeader(event, 'content-type', 'image/svg+xml; charset=utf-8')
-  setResponseHeader(event, 'cache-control', 'private, max-age=3600')
+  setResponseHeader(event, 'cache-control', 'no-store')
   return QRCode.toString(booking.reference, { type: 'svg', margin: 1, errorCorrectionLevel: 'M', color: { dark: '#1e2326', light: '#ffffff' } })
 })
