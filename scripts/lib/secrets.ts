@@ -26,7 +26,8 @@ export function localSecrets(name: string): LocalSecrets {
   mkdirSync(dataDir, { recursive: true })
   const secrets: LocalSecrets = {
     sessionPassword: randomBytes(32).toString('base64url'),
-    stripeSecretKey: `sk_test_${randomBytes(24).toString('base64url')}`,
+    // Hex: the fake (like Stripe) takes sk_test_ and word characters only, and base64url has '-'.
+    stripeSecretKey: `sk_test_${randomBytes(24).toString('hex')}`,
     stripeWebhookSecret: `whsec_${randomBytes(32).toString('base64url')}`,
   }
   writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 })

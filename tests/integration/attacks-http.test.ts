@@ -101,7 +101,9 @@ describe('attacks on the HTTP surface, second round (issue 16)', () => {
     const flood = 64 * 1024 * 1024
     const res = await chunkedFlood('/api/auth/signin', flood)
     expect(res.status).toBe(413)
-    expect(res.sentWhenAnswered).toBeLessThan(8 * 1024 * 1024) // the limit is 512 KB; socket buffers hold a few MB at most (common practice, no source)
+    // The limit is 512 KB; the answer comes long before the 64 MB are sent (reading it all was the old fault). How much the
+    // client has pushed by then depends on socket buffers and the machine's load, so the bound is loose: half the flood.
+    expect(res.sentWhenAnswered).toBeLessThan(flood / 2)
     // The server still answers others afterwards.
     expect((await new Client().get('/api/health')).status).toBe(200)
   })
