@@ -6,7 +6,8 @@
 import { describePour, type FilmResult, type RoomAir } from './science'
 import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
-import type { GlassShape } from './glassDiagram'
+import type { GlassShape } from './glassDrawing'
+import { liquidColourOf, type LiquidColour } from './liquidColours'
 import type { CardRoom, FlightCard } from './types/cards'
 import { cautionLines } from './cautions'
 import { standardDrinkDefinition, standardDrinksLine } from './utils/drinks'
@@ -26,7 +27,7 @@ export interface CardVenue {
 
 export interface CardPourInput {
   position: number
-  product: { name: string, kind: ProductKind, producer: string, vintageOrBatch: string | null, allergens: Allergen[] }
+  product: { name: string, kind: ProductKind, producer: string, vintageOrBatch: string | null, allergens: Allergen[], colour: LiquidColour | null }
   abvPctVol: number
   residualSugarGL: number
   volumeMl: number
@@ -123,6 +124,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       standardDrinks: round(p.standardDrinks, 2),
       filmActivityIndex: round(p.filmActivityIndex, 1),
       glass: p.glass,
+      colour: liquidColourOf(p.product),
       prediction: p.film.predictions,
       lookFor,
       tastingNote: p.tastingNote ?? null,

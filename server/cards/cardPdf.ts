@@ -8,7 +8,8 @@
  */
 import PDFDocument from 'pdfkit'
 import QRCode from 'qrcode'
-import { glassDiagramGeometry } from '../../shared/glassDiagram'
+import { glassDrawing } from '../../shared/glassDrawing'
+import { drawGlassPdf } from './pdfDrawing'
 import { CARD_FIT_STEPS, CARD_MARGIN_PT, type CardFit } from '../../shared/cards'
 import { CARD_PAPER_POINTS, type CardPaper } from '../../shared/paper'
 import type { FlightCard } from '../../shared/types/cards'
@@ -217,24 +218,7 @@ function foot(doc: PDFKit.PDFDocument, card: FlightCard, qr: Buffer, inner: numb
 
 /** The same glass diagram as the web pages, drawn as vectors at `size` points wide. */
 function drawGlass(doc: PDFKit.PDFDocument, pour: FlightCard['pours'][number], x: number, y: number, size: number) {
-  const g = glassDiagramGeometry(pour.glass, pour.prediction)
-  const [, , vw, vh] = g.viewBox.split(' ').map(Number) as [number, number, number, number]
-  const scale = Math.min(size / vw, (size * 1.1) / vh)
-  doc.save()
-  doc.translate(x, y).scale(scale)
-  doc.path(g.liquidPath).fillOpacity(0.45).fill(AMBER)
-  if (g.swirl) {
-    doc.path(g.swirl.curtainLeft).fillOpacity(0.3).fill('#e0a54a')
-    doc.path(g.swirl.curtainRight).fillOpacity(0.3).fill('#e0a54a')
-  }
-  for (const ring of g.rings) doc.moveTo(ring.x1, ring.y).lineTo(ring.x2, ring.y).lineWidth(g.stroke * 1.6).strokeOpacity(1).strokeColor('#cdb88f').stroke()
-  if (g.band) {
-    doc.path(g.band.left).fillOpacity(0.75).fill('#e0a54a')
-    doc.path(g.band.right).fillOpacity(0.75).fill('#e0a54a')
-  }
-  doc.fillOpacity(0.85)
-  for (const t of g.tears) doc.ellipse(t.x, t.y, t.rx, t.ry).fill('#8a5a12')
-  doc.fillOpacity(1)
-  doc.path(g.outline).lineWidth(g.stroke).strokeColor(SOFT).stroke()
-  doc.restore()
+  const drawing = glassDrawing({ glass: pour.glass, prediction: pour.prediction, colour: pour.colour, palette: 'light', label: pour.name, labels: false })
+  const v = drawing.viewBox
+  drawGlassPdf(doc, drawing, { x, y, height: Math.min(size * 1.1, (size * v.height) / v.width) })
 }

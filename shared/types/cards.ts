@@ -1,4 +1,5 @@
-import type { GlassShape } from '../glassDiagram'
+import type { GlassShape } from '../glassDrawing'
+import type { LiquidColour } from '../liquidColours'
 import type { RoomAir, TearPrediction } from '../science'
 import type { ImageView, RenderedText } from './content'
 
@@ -16,6 +17,8 @@ export interface CardPour {
   standardDrinks: number
   filmActivityIndex: number
   glass: GlassShape
+  /** The liquid's colour: the product's, or its kind's usual one. */
+  colour: LiquidColour
   prediction: TearPrediction
   lookFor: string[]
   /** The product's published tasting note: HTML for the print page, blocks for the PDF. */
