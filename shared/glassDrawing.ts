@@ -136,7 +136,7 @@ function aroundText(p: DiagramPrediction): string | null {
 }
 
 /** Tears on the front half: half the tears around, at least one, at most MAX_FRONT_TEARS. */
-export function frontTears(p: DiagramPrediction, frontArcMm: number): number {
+function frontTears(p: DiagramPrediction, frontArcMm: number): number {
   const spacing = p.tearSpacing_mm ?? (p.tearWidth_mm ? 3 * p.tearWidth_mm : 6)
   const around = p.tearsAround ?? (2 * frontArcMm) / spacing
   return Math.max(1, Math.min(MAX_FRONT_TEARS, Math.round(around / 2)))
