@@ -62,7 +62,7 @@ describe('the glass drawing looks as its reference images', () => {
         }
         const expected = PNG.sync.read(readFileSync(file))
         expect([actual.width, actual.height]).toEqual([expected.width, expected.height])
-        const differing = pixelmatch(actual.data, expected.data, null, actual.width, actual.height, { threshold: THRESHOLD })
+        const differing = pixelmatch(actual.data, expected.data, undefined, actual.width, actual.height, { threshold: THRESHOLD })
         expect(differing / (actual.width * actual.height)).toBeLessThanOrEqual(MAX_DIFF_SHARE)
       })
     }
