@@ -24,7 +24,7 @@ const invented = [
 const pours = invented.map(([name, kind, abv, sugar, temp, ml], i) => {
   const film = computeFilm({ abvPctVol: abv, tempC: temp, sugarGL: sugar, wallAngleDeg: glass.wallAngleDeg })
   const g = ethanolGrams(ml, abv)
-  return { position: i + 1, product: { name, kind, producer: 'Bench Cellars', vintageOrBatch: '2025', allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film }
+  return { position: i + 1, product: { name, kind, producer: 'Bench Cellars', vintageOrBatch: '2025', colour: null, allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film }
 })
 const totals = flightTotals(pours, 14)
 const venue = { name: 'Bench Tasting Room', address: '1 Bench Lane', cautions: 'Do not drive.\nLegal age only.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC', country: 'US', cardPaper: null }

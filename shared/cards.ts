@@ -7,7 +7,8 @@ import { rangeText, type FilmResult, type RoomAir } from './science'
 import { flightContrasts } from './flightContrast'
 import { formatTemperature, formatVolume } from './pours'
 import { PRODUCT_KIND_LABELS, type Allergen, type ProductKind } from './products'
-import type { GlassShape } from './glassDiagram'
+import type { GlassShape } from './glassDrawing'
+import { liquidColourOf, type LiquidColour } from './liquidColours'
 import type { CardFigures, CardRoom, FlightCard } from './types/cards'
 import { cautionLines } from './cautions'
 import { standardDrinkDefinition } from './utils/drinks'
@@ -30,7 +31,7 @@ export interface CardVenue {
 
 export interface CardPourInput {
   position: number
-  product: { name: string, kind: ProductKind, producer: string, vintageOrBatch: string | null, allergens: Allergen[] }
+  product: { name: string, kind: ProductKind, producer: string, vintageOrBatch: string | null, allergens: Allergen[], colour: LiquidColour | null }
   abvPctVol: number
   residualSugarGL: number
   volumeMl: number
@@ -170,6 +171,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       standardDrinks: round(p.standardDrinks, 2),
       filmActivityIndex: round(p.filmActivityIndex, 1),
       glass: p.glass,
+      colour: liquidColourOf(p.product),
       prediction: p.film.predictions,
       figures: cardFigures(p.film),
       contrast: contrast ? [contrast.text, contrast.also].filter(Boolean).join(' ') : null,

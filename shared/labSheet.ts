@@ -3,7 +3,7 @@ export const LAB_SHEETS = {
   products: {
     label: 'New products, each with its first measurement',
     required: ['code', 'kind', 'name', 'producer', 'abv_pct_vol', 'residual_sugar_g_l', 'serving_temp_c', 'bottle_ml', 'cost_per_bottle', 'lab', 'method', 'measured_on'],
-    optional: ['vintage', 'allergens', 'notes'],
+    optional: ['vintage', 'colour', 'allergens', 'notes'],
   },
   measurements: {
     label: 'New measurements of products already on the list',

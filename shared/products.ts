@@ -1,3 +1,5 @@
+import type { LiquidColour } from './liquidColours'
+
 export const PRODUCT_KINDS = ['still_wine', 'sparkling', 'fortified', 'spirit', 'beer', 'cider', 'low_alcohol', 'other'] as const
 export type ProductKind = (typeof PRODUCT_KINDS)[number]
 export const PRODUCT_KIND_LABELS: Record<ProductKind, string> = {
@@ -25,6 +27,8 @@ export interface ProductFields {
   name: string
   producer: string
   vintageOrBatch: string | null
+  /** The liquid's colour in the trade's words; null: the kind's usual colour (shared/liquidColours.ts). */
+  colour: LiquidColour | null
   servingTempC: number
   allergens: Allergen[]
   bottleSizeMl: number

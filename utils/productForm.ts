@@ -4,6 +4,7 @@ import { measurementSchema, productCreateSchema, productPatchSchema } from '#sha
 import { fromDisplayTemp, temperatureFigure } from '#shared/pours'
 import { TEMP_RANGE_C } from '#shared/science/ranges'
 import type { ProductView } from '#shared/types/products'
+import type { LiquidColour } from '#shared/liquidColours'
 import { currencyDigits, minorToDecimal, parseMoney } from '#shared/money'
 
 // The transforms below hand the schema values it has yet to check (an empty box is undefined); the
@@ -21,6 +22,8 @@ export interface ProductFormValues {
   name: string
   producer: string
   vintageOrBatch: string
+  /** '' : the kind's usual colour. */
+  colour: LiquidColour | ''
   servingTemp: number | ''
   allergens: Allergen[]
   bottleSizeMl: number | ''
@@ -50,6 +53,7 @@ export function productBody(v: ProductFormValues, units: FormUnits) {
     name: v.name,
     producer: v.producer,
     vintageOrBatch: v.vintageOrBatch,
+    colour: v.colour || null,
     servingTempC: temp === undefined ? undefined : fromDisplayTemp(temp, units.temperatureUnit),
     allergens: v.allergens,
     bottleSizeMl: numberOrNothing(v.bottleSizeMl),
@@ -84,7 +88,7 @@ export const measurementForm = z.custom<MeasurementFormValues>()
 /** The form's starting values: a blank product, or this product in the venue's units. */
 export function productFormValues(p: ProductView | null, units: FormUnits): ProductFormValues {
   if (!p) {
-    return { code: '', kind: '', name: '', producer: '', vintageOrBatch: '', servingTemp: '', allergens: [], bottleSizeMl: 750, cost: '', status: 'active' }
+    return { code: '', kind: '', name: '', producer: '', vintageOrBatch: '', colour: '', servingTemp: '', allergens: [], bottleSizeMl: 750, cost: '', status: 'active' }
   }
   return {
     code: p.code,
@@ -92,6 +96,7 @@ export function productFormValues(p: ProductView | null, units: FormUnits): Prod
     name: p.name,
     producer: p.producer,
     vintageOrBatch: p.vintageOrBatch ?? '',
+    colour: p.colour ?? '',
     // The figure every page shows; the edit form sends only what changed, so an untouched one stays exact.
     servingTemp: Number(temperatureFigure(p.servingTempC, units.temperatureUnit)),
     allergens: [...p.allergens],

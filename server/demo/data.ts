@@ -58,12 +58,12 @@ const LAB = { lab: 'Wrenfield Cellar Lab (demo)', method: 'Ebulliometry / enzyma
 export const DEMO_LAB = LAB
 
 export const DEMO_PRODUCTS: DemoProduct[] = [
-  { code: 'SV-CID-21', kind: 'cider', name: 'Orchard Gate Dry Cider', producer: 'Saltmarsh & Vine', vintageOrBatch: 'Batch 21', servingTempC: 8, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 900, abvPctVol: 6.2, residualSugarGL: 4 },
-  { code: 'SV-ALB-24', kind: 'still_wine', name: 'Tidewater Albariño', producer: 'Saltmarsh & Vine', vintageOrBatch: '2024', servingTempC: 9, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1400, abvPctVol: 12.5, residualSugarGL: 2.1 },
-  { code: 'SV-SPK-22', kind: 'sparkling', name: 'Heron Quay Brut', producer: 'Saltmarsh & Vine', vintageOrBatch: '2022', servingTempC: 7, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 2100, abvPctVol: 11.8, residualSugarGL: 8 },
-  { code: 'SV-CF-23', kind: 'still_wine', name: 'Driftwood Cabernet Franc', producer: 'Saltmarsh & Vine', vintageOrBatch: '2023', servingTempC: 16, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1700, abvPctVol: 13.6, residualSugarGL: 1.5 },
-  { code: 'SV-FOR-19', kind: 'fortified', name: 'Low Tide Fortified Red', producer: 'Saltmarsh & Vine', vintageOrBatch: '2019', servingTempC: 16, allergens: ['sulfites'], bottleSizeMl: 500, costPerBottleMinor: 2300, abvPctVol: 19.5, residualSugarGL: 98 },
-  { code: 'SV-GIN-07', kind: 'spirit', name: 'Marsh Samphire Gin', producer: 'Saltmarsh & Vine Still', vintageOrBatch: 'Batch 7', servingTempC: 18, allergens: [], bottleSizeMl: 700, costPerBottleMinor: 1900, abvPctVol: 43, residualSugarGL: 0 },
+  { code: 'SV-CID-21', kind: 'cider', name: 'Orchard Gate Dry Cider', producer: 'Saltmarsh & Vine', vintageOrBatch: 'Batch 21', colour: 'pale_straw', servingTempC: 8, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 900, abvPctVol: 6.2, residualSugarGL: 4 },
+  { code: 'SV-ALB-24', kind: 'still_wine', name: 'Tidewater Albariño', producer: 'Saltmarsh & Vine', vintageOrBatch: '2024', colour: 'straw', servingTempC: 9, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1400, abvPctVol: 12.5, residualSugarGL: 2.1 },
+  { code: 'SV-SPK-22', kind: 'sparkling', name: 'Heron Quay Brut', producer: 'Saltmarsh & Vine', vintageOrBatch: '2022', colour: 'gold', servingTempC: 7, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 2100, abvPctVol: 11.8, residualSugarGL: 8 },
+  { code: 'SV-CF-23', kind: 'still_wine', name: 'Driftwood Cabernet Franc', producer: 'Saltmarsh & Vine', vintageOrBatch: '2023', colour: 'ruby', servingTempC: 16, allergens: ['sulfites'], bottleSizeMl: 750, costPerBottleMinor: 1700, abvPctVol: 13.6, residualSugarGL: 1.5 },
+  { code: 'SV-FOR-19', kind: 'fortified', name: 'Low Tide Fortified Red', producer: 'Saltmarsh & Vine', vintageOrBatch: '2019', colour: 'garnet', servingTempC: 16, allergens: ['sulfites'], bottleSizeMl: 500, costPerBottleMinor: 2300, abvPctVol: 19.5, residualSugarGL: 98 },
+  { code: 'SV-GIN-07', kind: 'spirit', name: 'Marsh Samphire Gin', producer: 'Saltmarsh & Vine Still', vintageOrBatch: 'Batch 7', colour: 'water_white', servingTempC: 18, allergens: [], bottleSizeMl: 700, costPerBottleMinor: 1900, abvPctVol: 43, residualSugarGL: 0 },
 ]
 
 /**

@@ -56,6 +56,7 @@ export function productView(p: ProductWithMeasurement & { history?: ProductMeasu
     name: p.name,
     producer: p.producer,
     vintageOrBatch: p.vintageOrBatch,
+    colour: p.colour,
     servingTempC: p.servingTempC,
     allergens: p.allergens,
     bottleSizeMl: p.bottleSizeMl,

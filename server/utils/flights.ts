@@ -39,7 +39,7 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[], room: Ro
     return {
       position: i + 1,
       productId: p.id,
-      product: { code: p.code, name: p.name, kind: p.kind, producer: p.producer, vintageOrBatch: p.vintageOrBatch, allergens: p.allergens, status: p.status },
+      product: { code: p.code, name: p.name, kind: p.kind, producer: p.producer, vintageOrBatch: p.vintageOrBatch, colour: p.colour, allergens: p.allergens, status: p.status },
       abvPctVol: p.current.abvPctVol,
       residualSugarGL: p.current.residualSugarGL,
       measuredOn: p.current.measuredOn,

@@ -6,10 +6,11 @@ import { PRODUCT_KINDS, PRODUCT_KIND_LABELS, ALLERGENS, type ProductKind } from 
 import { measurementSchema, productCreateSchema } from '../../shared/schemas/products'
 import { fieldErrorsFromZod } from '../../shared/utils/fieldErrors'
 import { currencyDigits, parseMoney } from '../../shared/money'
+import { LIQUID_COLOURS, LIQUID_COLOUR_LABELS, type LiquidColour } from '../../shared/liquidColours'
 
 /** Which CSV column each schema field comes from, so errors point at the column the manager sees. */
 const COLUMN_OF: Record<string, string> = {
-  'code': 'code', 'kind': 'kind', 'name': 'name', 'producer': 'producer', 'vintageOrBatch': 'vintage',
+  'code': 'code', 'kind': 'kind', 'name': 'name', 'producer': 'producer', 'vintageOrBatch': 'vintage', 'colour': 'colour',
   'servingTempC': 'serving_temp_c', 'allergens': 'allergens', 'bottleSizeMl': 'bottle_ml', 'costPerBottleMinor': 'cost_per_bottle',
   'measurement.abvPctVol': 'abv_pct_vol', 'measurement.residualSugarGL': 'residual_sugar_g_l', 'measurement.lab': 'lab',
   'measurement.method': 'method', 'measurement.measuredOn': 'measured_on', 'measurement.notes': 'notes',
@@ -30,6 +31,13 @@ function toKind(s: string | undefined): ProductKind | string | undefined {
   return PRODUCT_KINDS.find(k => k === t.replace(/[\s-]+/g, '_') || PRODUCT_KIND_LABELS[k].toLowerCase() === t) ?? s
 }
 
+/** A colour cell: the trade word as stored ("ruby") or as labelled ("Pale straw"); empty: none. */
+function toColour(s: string | undefined): LiquidColour | string | null {
+  const t = s?.trim().toLowerCase()
+  if (!t) return null
+  return LIQUID_COLOURS.find(c => c === t.replace(/[\s-]+/g, '_') || LIQUID_COLOUR_LABELS[c].toLowerCase() === t) ?? s!
+}
+
 /** A sheet's cost cell in minor units: a plain, non-negative number with at most the currency's decimals, else NaN. */
 function sheetMinor(cell: string | undefined, currency: string): number | undefined {
   const v = parseMoney(cell, currency)
@@ -43,6 +51,7 @@ function productInput(r: Record<string, string>, currency: string) {
     name: r.name,
     producer: r.producer,
     vintageOrBatch: r.vintage || null,
+    colour: toColour(r.colour),
     servingTempC: toNumber(r.serving_temp_c),
     allergens: (r.allergens ?? '').split(/[;|]/).map(a => a.trim().toLowerCase()).filter(Boolean),
     bottleSizeMl: toNumber(r.bottle_ml),

@@ -1,5 +1,6 @@
 import { z } from './zod'
 import { ALLERGENS, PRODUCT_KINDS, PRODUCT_STATUSES } from '../products'
+import { LIQUID_COLOURS } from '../liquidColours'
 import { ABV_RANGE_PCT_VOL, SUGAR_RANGE_G_L, TEMP_RANGE_C } from '../science/ranges'
 import { isoDateField } from './common'
 
@@ -37,6 +38,8 @@ const productFields = {
   name: z.string({ error: 'Enter the name.' }).trim().min(1, { error: 'Enter the name.' }).max(160, { error: 'Use at most 160 characters.' }),
   producer: z.string({ error: 'Enter the producer.' }).trim().min(1, { error: 'Enter the producer.' }).max(160, { error: 'Use at most 160 characters.' }),
   vintageOrBatch: z.string().trim().max(40, { error: 'Use at most 40 characters.' }).nullish().transform(v => v || null),
+  colour: z.enum(LIQUID_COLOURS, { error: `Choose a colour: ${LIQUID_COLOURS.join(', ')}, or none for the kind's usual colour.` })
+    .nullish().transform(v => v ?? null),
   servingTempC: num('the serving temperature', TEMP_RANGE_C.min, TEMP_RANGE_C.max, '°C'),
   allergens: z.array(z.enum(ALLERGENS, { error: `Allergens must be among: ${ALLERGENS.join(', ')}.` }), { error: 'List the allergens.' })
     .max(ALLERGENS.length).transform(a => [...new Set(a)]),

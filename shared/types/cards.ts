@@ -1,4 +1,5 @@
-import type { GlassShape } from '../glassDiagram'
+import type { GlassShape } from '../glassDrawing'
+import type { LiquidColour } from '../liquidColours'
 import type { RoomAir, TearPrediction } from '../science'
 import type { ImageView, RenderedText } from './content'
 import type { CardPaper } from '../paper'
@@ -24,6 +25,8 @@ export interface CardPour {
   standardDrinks: number
   filmActivityIndex: number
   glass: GlassShape
+  /** The liquid's colour: the product's, or its kind's usual one. */
+  colour: LiquidColour
   prediction: TearPrediction
   /** The predicted figures the card's table prints under the pour's glass. */
   figures: CardFigures

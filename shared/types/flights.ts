@@ -1,4 +1,5 @@
 import type { FlightStatus } from '../flights'
+import type { LiquidColour } from '../liquidColours'
 import type { Allergen, ProductKind, ProductStatus } from '../products'
 import type { FilmResult } from '../science'
 import type { ImageView, RenderedText } from './content'
@@ -11,7 +12,7 @@ export interface GlassView { id: number, name: string, bowlDiameterMm: number, w
 export interface FlightPourView {
   position: number
   productId: number
-  product: { code: string, name: string, kind: ProductKind, producer: string, vintageOrBatch: string | null, allergens: Allergen[], status: ProductStatus }
+  product: { code: string, name: string, kind: ProductKind, producer: string, vintageOrBatch: string | null, colour: LiquidColour | null, allergens: Allergen[], status: ProductStatus }
   abvPctVol: number
   residualSugarGL: number
   /** Calendar date of the lab measurement used, YYYY-MM-DD. */

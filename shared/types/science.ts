@@ -1,4 +1,5 @@
 import type { ProductKind } from '../products'
+import type { LiquidColour } from '../liquidColours'
 import type { FilmResult, TearPrediction } from '../science'
 
 /** Every quantity of the glass model for one pour, and the guest's sentences (GET /api/science/film). */
@@ -11,6 +12,8 @@ export interface ProductOnCurve {
   kind: ProductKind
   producer: string
   vintageOrBatch: string | null
+  /** The liquid's colour: the product's, or its kind's usual one. */
+  colour: LiquidColour
   abvPctVol: number
   residualSugarGL: number
   servingTempC: number

@@ -5,7 +5,8 @@ import type { Locator, Page, Request } from 'playwright-core'
 import { SHOTS_DIR, openBrowser, shot, signInThroughForm } from '../support/browser'
 import { Client } from '../support/http'
 import { demoFlightId } from '../support/booking'
-import { DEMO_PASSWORD } from '../../server/demo/data'
+import { DEMO_PASSWORD, DEMO_PRODUCTS } from '../../server/demo/data'
+import { LIQUID_COLOUR_FILL } from '../../shared/liquidColours'
 import type { PourPage } from '../../shared/types/cards'
 import type { FlightView } from '../../shared/types/flights'
 import type { ProductView } from '../../shared/types/products'
@@ -218,6 +219,70 @@ describe('the guest\'s pages show the model\'s ranges', () => {
       expectShown(parseRange(await facts.locator('[data-figure="speed"] dd').innerText()), fortified.derived.predictions.ranges.tearFallSpeed_mm_s!, fortified.name)
       expect((await facts.locator('[data-room]').innerText()).replace(/\s+/g, ' ')).toContain(`${fahrenheit(fortified.derived.room.airTempC)} °F`)
       await shot(page, `product-facts-ranges${width < 500 ? '-phone' : ''}`)
+      await close()
+    }
+  })
+
+  it('on a 390 px phone the pour page draws the glass at least 160 px wide, labels inside, the liquid in the product\'s colour', async () => {
+    const cabFranc = pages.find(p => p.pour.name === DEMO_PRODUCTS.find(d => d.code === 'SV-CF-23')!.name)!
+    expect(cabFranc.pour.colour).toBe('ruby')
+    const { context, close } = await openBrowser({ width: 390, height: 844 })
+    const page = await context.newPage()
+    await page.goto(`/pour/${flightId}/${cabFranc.pour.position}`)
+    const svg = page.locator('figure svg[data-show]').first()
+    await svg.waitFor()
+    const box = (await svg.boundingBox())!
+    expect(box.width).toBeGreaterThanOrEqual(160)
+    expect(box.x + box.width).toBeLessThanOrEqual(390)
+    expect(await labelsInside(svg)).toEqual([])
+    // "band 11 mm" once lost its last letter to the SVG's edge: the range label is whole.
+    const texts = (await svg.locator('text').allTextContents()).map(t => t.replace(/\s+/g, ' '))
+    expect(texts.some(t => / mm$/.test(t))).toBe(true)
+    expect(await svg.locator('[data-role="liquid"]').getAttribute('fill')).toBe(LIQUID_COLOUR_FILL.ruby.hex)
+    await elementShot(page.locator('figure').filter({ has: page.locator('svg[data-show]') }).first(), 'pour-glass-drawing-phone')
+    await shot(page, 'pour-page-drawing-phone')
+    // The flight's pour list draws each pour's glass at least 96 px wide, in its own colour.
+    await page.goto(`/pour/${flightId}`)
+    const small = page.locator('figure svg[data-show]')
+    await small.first().waitFor()
+    expect(await small.count()).toBe(pages.length)
+    for (let i = 0; i < pages.length; i++) {
+      expect((await small.nth(i).boundingBox())!.width).toBeGreaterThanOrEqual(95)
+      expect(await small.nth(i).getAttribute('data-colour')).toBe(pages[i]!.pour.colour)
+    }
+    await shot(page, 'pour-list-drawings-phone')
+    await close()
+  })
+
+  it('a colour the manager chooses on the product form is the colour the guest\'s pour page draws', async () => {
+    const albarino = pages.find(p => p.pour.name === DEMO_PRODUCTS.find(d => d.code === 'SV-ALB-24')!.name)!
+    const { context, close } = await openBrowser({ width: 1280, height: 900 })
+    const page = await context.newPage()
+    await signInThroughForm(page, 'manager@saltmarsh.test', DEMO_PASSWORD)
+    await page.waitForURL('**/manage')
+    const products = await (await context.request.get('/api/products')).json() as ProductView[]
+    const product = products.find(p => p.name === albarino.pour.name)!
+    const before = product.colour
+    try {
+      await page.goto(`/manage/products/${product.id}`)
+      const select = page.getByLabel('Colour in the glass')
+      await select.waitFor()
+      expect(await select.locator('option').first().innerText()).toMatch(/^Kind's usual colour/)
+      await select.selectOption('deep_gold')
+      await page.getByRole('button', { name: 'Save changes' }).click()
+      await page.getByText('Saved. The figures on this page').waitFor()
+      const guest = await openBrowser({ width: 390, height: 844 })
+      const phone = await guest.context.newPage()
+      await phone.goto(`/pour/${flightId}/${albarino.pour.position}`)
+      const liquid = phone.locator('figure svg[data-show] [data-role="liquid"]').first()
+      await liquid.waitFor()
+      expect(await liquid.getAttribute('fill')).toBe(LIQUID_COLOUR_FILL.deep_gold.hex)
+      await shot(phone, 'pour-page-manager-colour-phone')
+      await guest.close()
+    }
+    finally {
+      const res = await context.request.patch(`/api/products/${product.id}`, { data: { colour: before } })
+      expect(res.status()).toBe(200)
       await close()
     }
   })

@@ -20,7 +20,7 @@ describe('lab-sheet import', () => {
   })
   afterAll(async () => {
     await removeProducts(sampleCodes('products'))
-    await removeProducts(Array.from({ length: 20 }, (_, i) => `${tag}-E${i}`))
+    await removeProducts(Array.from({ length: 23 }, (_, i) => `${tag}-E${i}`))
     await removeMeasurementsAfter(firstNewMeasurement)
   })
 
@@ -90,9 +90,23 @@ describe('lab-sheet import', () => {
   it('reports missing and unknown columns for the sheet and on every row', async () => {
     const { check } = await preview('products', productsSheetMissingColumn(tag))
     expect(check.missingColumns).toEqual(['lab'])
-    expect(check.unknownColumns).toEqual(['colour'])
+    expect(check.unknownColumns).toEqual(['closure'])
     expect(check.validCount).toBe(0)
     for (const r of check.rows) expect(r.errors.lab).toMatch(/missing from the sheet/)
+  })
+
+  it('reads an optional colour column by its trade word or its label, and names an unknown one', async () => {
+    const csv = toCsv([productRow(`${tag}-E20`, { colour: 'Pale straw' }), productRow(`${tag}-E21`, { colour: 'purple' }), productRow(`${tag}-E22`, { colour: '' })], PRODUCT_COLUMNS)
+    const { check } = await preview('products', csv)
+    expect(rowAt(check, 2).errors).toEqual({})
+    expect(Object.keys(rowAt(check, 3).errors)).toEqual(['colour'])
+    expect(rowAt(check, 3).errors.colour).toMatch(/Choose a colour: water_white/)
+    expect(rowAt(check, 4).errors).toEqual({})
+    const res = await manager.post('/api/lab-sheets', { sheet: 'products', csv, lines: [2, 4] })
+    expect(res.status).toBe(201)
+    const list = (await manager.get('/api/products')).body as { code: string, colour: string | null }[]
+    expect(list.find(p => p.code === `${tag}-E20`)!.colour).toBe('pale_straw')
+    expect(list.find(p => p.code === `${tag}-E22`)!.colour).toBeNull()
   })
 
   it('keeps line numbers true to the file across blank rows and quoted line breaks', async () => {

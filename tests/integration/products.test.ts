@@ -99,6 +99,21 @@ describe('products', () => {
     expect(await countRows('products')).toBe(products)
   })
 
+  it('keeps a product\'s colour: a trade word, or null for the kind\'s usual one; an unknown word is a 400 on its field', async () => {
+    const made = await manager.post('/api/products', newProduct(`${tag}-K`, { colour: 'ruby' }))
+    expect(made.status).toBe(201)
+    expect(made.body.colour).toBe('ruby')
+    const bad = await manager.patch(`/api/products/${made.body.id}`, { colour: 'purple' })
+    expect(bad.status).toBe(400)
+    expect(Object.keys(bad.body.data.fields)).toEqual(['colour'])
+    expect(bad.body.data.fields.colour).toMatch(/Choose a colour: water_white, .*ruby/)
+    expect((await manager.get(`/api/products/${made.body.id}`)).body.colour).toBe('ruby')
+    const cleared = await manager.patch(`/api/products/${made.body.id}`, { colour: null })
+    expect(cleared.body.colour).toBeNull()
+    const unset = await manager.post('/api/products', newProduct(`${tag}-L`))
+    expect(unset.body.colour).toBeNull()
+  })
+
   it('patches fields; a retired product stays retired when another field changes', async () => {
     const { body: p } = await manager.post('/api/products', newProduct(`${tag}-B`))
     const renamed = await manager.patch(`/api/products/${p.id}`, { name: 'Brinefield White, Late Bottling', servingTempC: 12, costPerBottleMinor: 1600 })

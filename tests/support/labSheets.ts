@@ -89,8 +89,8 @@ export function productsErrorSheet(tag: string): { csv: string, expected: Expect
 
 /** A products sheet without the `lab` column and with one the importer does not know. */
 export function productsSheetMissingColumn(tag: string): string {
-  const columns = [...PRODUCT_COLUMNS.filter(c => c !== 'lab'), 'colour']
-  return toCsv([productRow(`${tag}-M1`, { colour: 'gold' }), productRow(`${tag}-M2`, { colour: 'ruby' })], columns)
+  const columns = [...PRODUCT_COLUMNS.filter(c => c !== 'lab'), 'closure']
+  return toCsv([productRow(`${tag}-M1`, { closure: 'cork' }), productRow(`${tag}-M2`, { closure: 'screwcap' })], columns)
 }
 
 /** A measurements sheet: a valid row (line 2), then one error per line. */

@@ -22,7 +22,7 @@ function card(note: string, intro = 'Six pours along the **shore**: take _your_ 
   const pours = INVENTED.map(([name, kind, abv, sugar, temp, ml], i) => {
     const film = computeFilm({ abvPctVol: abv, tempC: temp, sugarGL: sugar, wallAngleDeg: glass.wallAngleDeg, room: room.air })
     const g = ethanolGrams(ml, abv)
-    return { position: i + 1, product: { name, kind, producer: 'Unit Cellars', vintageOrBatch: '2025', allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film, tastingNote: renderNote(note) }
+    return { position: i + 1, product: { name, kind, producer: 'Unit Cellars', vintageOrBatch: '2025', colour: null, allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film, tastingNote: renderNote(note) }
   })
   const venue = { name: 'Unit Tasting Room', address: '1 Unit Lane', cautions: 'Please do not drive after your tasting.\nYou must be of legal drinking age.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC', country: 'PT', cardPaper: null }
   return buildFlightCard({ venue, flight: { id: 1, name: 'Unit flight', version: 1, summary: 'Six pours', pours, totals: flightTotals(pours, 14), intro: renderNote(intro) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'A Guest', room })

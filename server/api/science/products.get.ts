@@ -1,5 +1,6 @@
 import { computeFilm, describePour, DEFAULT_WALL_ANGLE_DEG } from '../../../shared/science'
 import { drinkKindOf } from '../../../shared/pours'
+import { liquidColourOf } from '../../../shared/liquidColours'
 import { productsQuerySchema } from '../../../shared/schemas/science'
 import type { ProductOnCurve } from '../../../shared/types/science'
 
@@ -21,6 +22,7 @@ export default defineEventHandler(async (event): Promise<ProductOnCurve[]> => {
       kind: p.kind,
       producer: p.producer,
       vintageOrBatch: p.vintageOrBatch,
+      colour: liquidColourOf(p),
       abvPctVol: p.current.abvPctVol,
       residualSugarGL: p.current.residualSugarGL,
       servingTempC: p.servingTempC,
