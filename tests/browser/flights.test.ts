@@ -84,7 +84,8 @@ describe('the print-ready card', () => {
     await page.waitForURL('**/host')
     await page.goto('/cards/flights/1')
     await page.getByText('This flight:').waitFor()
-    expect(await page.locator('.card-pour').count()).toBe(6)
+    expect(await page.locator('section.card-block').count()).toBe(6) // one block per pour
+    expect(await page.locator('.card-glasses thead svg').count()).toBe(6) // and one glass each in the row
     await shot(page, 'card-print-page')
     await page.emulateMedia({ media: 'print' })
     expect(await page.getByRole('button', { name: 'Print' }).isVisible()).toBe(false)

@@ -42,7 +42,16 @@ function chunkedFlood(path: string, maxBytes: number): Promise<{ status: number,
       done({ status, sentWhenAnswered: sent })
       req.destroy()
     })
-    req.on('error', (err) => { if (!answered) fail(err) })
+    // A server that has refused the body may cut the connection before its answer is read (a busy
+    // machine): that too means it stopped reading. Status 0 stands for "cut".
+    req.on('error', (err: NodeJS.ErrnoException) => {
+      if (answered) return
+      if (err.code === 'ECONNRESET' || err.code === 'EPIPE') {
+        answered = true
+        done({ status: 0, sentWhenAnswered: sent })
+      }
+      else fail(err)
+    })
     const chunk = Buffer.alloc(64 * 1024, 0x20)
     const pump = () => {
       while (!answered && sent < maxBytes) {
@@ -100,10 +109,12 @@ describe('attacks on the HTTP surface, second round (issue 16)', () => {
   it('16.5 a chunked body with no Content-Length is refused at the limit without being read to its end', async () => {
     const flood = 64 * 1024 * 1024
     const res = await chunkedFlood('/api/auth/signin', flood)
-    expect(res.status).toBe(413)
+    expect([413, 0]).toContain(res.status)
     // The limit is 512 KB; the answer comes long before the 64 MB are sent (reading it all was the old fault). How much the
     // client has pushed by then depends on socket buffers and the machine's load, so the bound is loose: half the flood.
     expect(res.sentWhenAnswered).toBeLessThan(flood / 2)
+    // Just over the limit (1 MB, chunked): sent in full and read back, the answer is the 413 itself.
+    expect((await chunkedFlood('/api/auth/signin', 1024 * 1024)).status).toBe(413)
     // The server still answers others afterwards.
     expect((await new Client().get('/api/health')).status).toBe(200)
   })

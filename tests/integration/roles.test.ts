@@ -70,13 +70,17 @@ describe('managing staff', () => {
     return { m, id: body.id as number, email, person }
   }
 
-  it('a role change takes effect on the next request', async () => {
-    const { m, id, person } = await invitedAndAccepted('host')
+  it('a role change ends the person\'s sessions; signed in again, the new role holds', async () => {
+    const { m, id, email, person } = await invitedAndAccepted('host')
     expect((await person.get('/api/staff')).status).toBe(403)
     const changed = await m.patch(`/api/staff/${id}`, { role: 'manager' })
     expect(changed.status).toBe(200)
     expect(changed.body.role).toBe('manager')
-    expect((await person.get('/api/staff')).status).toBe(200)
+    // The cookie sealed for the host no longer counts (issue 16, item 2: a role change bumps the session version).
+    expect((await person.get('/api/staff')).status).toBe(401)
+    const again = new Client()
+    expect((await again.post('/api/auth/signin', { email, password: 'staff-password-1' })).status).toBe(200)
+    expect((await again.get('/api/staff')).status).toBe(200)
   })
 
   it('disabling an account ends its session and blocks sign-in', async () => {

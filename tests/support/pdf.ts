@@ -66,7 +66,8 @@ export function unitBreaks(bytes: Buffer): string[] {
   for (let i = 0; i + 1 < lines.length; i++) {
     const a = lines[i]!
     const b = lines[i + 1]!
-    if ((/[\d–]$/.test(a) && /\d$/.test(a) && UNIT_START.test(b)) || /\/$/.test(a)) out.push(`${a} ⏎ ${b}`)
+    // A unit split at its slash ("mm/" ⏎ "s"); a long web address cut at a slash is not a unit.
+    if ((/\d$/.test(a) && UNIT_START.test(b)) || (/(?:^|[\s\d])(?:mm|mN|g|km|m)\/$/.test(a) && /^(?:s|m|L)\b/.test(b))) out.push(`${a} ⏎ ${b}`)
   }
   return out
 }
