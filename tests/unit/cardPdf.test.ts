@@ -7,6 +7,9 @@ import { renderNote } from '../../shared/markdown'
 import { renderCardsPdf } from '../../server/cards/cardPdf'
 import { compactLists } from '../../server/cards/pdfText'
 import { inspectPdf, pdfRuns, unitBreaks } from '../support/pdf'
+import { DEFAULT_GLASSES, DEMO_FLIGHTS, DEMO_PRODUCTS, DEMO_VENUE } from '../../server/demo/data'
+import { DEMO_INTROS, DEMO_NOTES } from '../../server/demo/content'
+import { drinkKindOf } from '../../shared/pours'
 
 const fontDir = resolve(import.meta.dirname, '../../node_modules/@fontsource/lora/files')
 const font = (name: string) => readFileSync(resolve(fontDir, name))
@@ -30,6 +33,33 @@ function card(note: string, intro = 'Six pours along the **shore**: take _your_ 
 
 /** A note as long as a venue's usual one: a sentence and a two-item list. */
 const USUAL_NOTE = 'Green apple and **brioche**, then:\n\n- lemon _zest_\n- a **saline, chalky** finish'
+
+/**
+ * The demo's own flight card, built from the demo's data as the server builds it (the venue's usual
+ * room, each pour's glass, volume and kind), for a named guest at a session: the longest header.
+ */
+function demoCard() {
+  const room = { relativeHumidityPct: DEMO_VENUE.roomHumidityPct, airTempC: DEMO_VENUE.roomAirTempC }
+  const flight = DEMO_FLIGHTS[0]!
+  const pours = flight.pours.map((fp, i) => {
+    const p = DEMO_PRODUCTS.find(x => x.code === fp.code)!
+    const glass = DEFAULT_GLASSES.find(g => g.name === fp.glass)!
+    const film = computeFilm({ abvPctVol: p.abvPctVol, tempC: fp.servingTempC, sugarGL: p.residualSugarGL, wallAngleDeg: glass.wallAngleDeg, bowlDiameterMm: glass.bowlDiameterMm, pourVolumeMl: fp.volumeMl, kind: drinkKindOf(p.kind), room })
+    const g = ethanolGrams(fp.volumeMl, p.abvPctVol)
+    return { position: i + 1, product: { ...p, colour: p.colour ?? null }, abvPctVol: p.abvPctVol, residualSugarGL: p.residualSugarGL, volumeMl: fp.volumeMl, servingTempC: fp.servingTempC, glass, ethanolGrams: g, standardDrinks: g / DEMO_VENUE.standardDrinkGrams, filmActivityIndex: film.filmActivityIndex, film, tastingNote: renderNote(DEMO_NOTES[p.code]!) }
+  })
+  const venue = { ...DEMO_VENUE, cardPaper: null }
+  return buildFlightCard({ venue, flight: { id: 1, name: flight.name, version: 1, summary: flight.summary, pours, totals: flightTotals(pours, DEMO_VENUE.standardDrinkGrams), intro: renderNote(DEMO_INTROS[flight.name]!) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'Maren Achterberg', sessionLabel: 'Sat, Dec 5, 2026, 2:00 PM', room: { air: room, source: 'session', readAt: '2026-12-05T18:40:00Z' } })
+}
+
+describe('the demo flight\'s card', () => {
+  it.each(['a5', 'half-letter'] as const)('%s: one page, nothing under 8.5 pt, no unit parted from its figure', async (paper) => {
+    const bytes = await renderCardsPdf([demoCard()], { paper, fonts })
+    expect(inspectPdf(bytes).pages).toBe(1)
+    expect(pdfRuns(bytes).filter(r => r.size < 8.5).map(r => `${r.size}: ${r.text}`)).toEqual([])
+    expect(unitBreaks(bytes)).toEqual([])
+  }, 30_000)
+})
 
 describe('the card PDF with notes', () => {
   it.each(['a5', 'half-letter'] as const)('%s: six pours, each with a note and a list, fit one page per card', async (paper) => {
