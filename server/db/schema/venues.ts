@@ -1,4 +1,4 @@
-import { mysqlTable, int, varchar, char, text, mysqlEnum, double, json, decimal } from 'drizzle-orm/mysql-core'
+import { mysqlTable, int, varchar, char, text, mysqlEnum, double, json, decimal, boolean } from 'drizzle-orm/mysql-core'
 import type { OpeningHours } from '../../../shared/venue'
 import { timestamps } from './common'
 import { CARD_PAPERS } from '../../../shared/paper'
@@ -45,6 +45,11 @@ export const venues = mysqlTable('venues', {
   roomHumidityPct: int('room_humidity_pct').notNull().default(50),
   /** °C to a tenth; pages show it in the venue's temperature unit. */
   roomAirTempC: decimal('room_air_temp_c', { precision: 4, scale: 1, mode: 'number' }).notNull().default(21),
+  /**
+   * Whether predictions and cards may use the glass model's parameters calibrated from this venue's
+   * observations (docs/science.md, "Calibration"); off: the published defaults, always.
+   */
+  calibrationEnabled: boolean('calibration_enabled').notNull().default(true),
   ...timestamps,
 })
 
