@@ -49,3 +49,68 @@ export const OBSERVED_MINUTES_MAX = 240
 /** Where the room reading attached to an observation came from. */
 export const ROOM_SOURCES = ['host', 'session', 'venue'] as const
 export type RoomSource = (typeof ROOM_SOURCES)[number]
+
+/**
+ * A band read by eye against a millimetre scale on a curved glass: ±1 mm before it counts as
+ * outside the predicted range (estimate, no source).
+ */
+export const BAND_READING_ERROR_MM = 1
+
+/** Where an observed value fell against the model's 10–90 % range. */
+export type Agreement = 'inside' | 'above' | 'below' | 'not_compared'
+
+export interface ObservationComparison {
+  band: Agreement
+  speed: Agreement
+  count: Agreement
+  /** Whether tears formed as the model expected ('not_compared' for "unsure"). */
+  tears: 'agrees' | 'disagrees' | 'not_compared'
+}
+
+/** What compareObservation needs of an observation. */
+export interface ObservedValues {
+  bandHeightMm: number | null
+  noClearBand: boolean
+  tearsFormed: TearsFormed
+  tearCount: TearCount | null
+  tearSpeed: TearSpeed | null
+}
+
+/** What compareObservation needs of a prediction (a TearPrediction fits). */
+export interface PredictedRanges {
+  tearsExpected: boolean
+  bandVisible: boolean
+  ranges: {
+    clearBandHeight_mm: { low: number, high: number } | null
+    tearFallSpeed_mm_s: { low: number, high: number } | null
+    tearsAround: { low: number, high: number } | null
+  }
+}
+
+/** An interval [min, max] against a range: overlapping is inside, else above or below. */
+function against(min: number, max: number, r: { low: number, high: number } | null): Agreement {
+  if (!r) return 'not_compared'
+  if (max < r.low) return 'below'
+  if (min > r.high) return 'above'
+  return 'inside'
+}
+
+/**
+ * How one observation compares with the model's prediction for that glass: the band against its
+ * range (±BAND_READING_ERROR_MM), the speed's and the count's bins against theirs, tears or none.
+ */
+export function compareObservation(o: ObservedValues, p: PredictedRanges): ObservationComparison {
+  let band: Agreement = 'not_compared'
+  if (o.noClearBand) band = p.bandVisible ? 'below' : 'inside'
+  else if (o.bandHeightMm !== null) {
+    band = p.bandVisible || p.ranges.clearBandHeight_mm
+      ? against(o.bandHeightMm - BAND_READING_ERROR_MM, o.bandHeightMm + BAND_READING_ERROR_MM, p.ranges.clearBandHeight_mm)
+      : 'above'
+  }
+  const speedBin = o.tearSpeed ? TEAR_SPEED_BINS_MM_S[o.tearSpeed] : null
+  const speed = speedBin ? against(speedBin.min, speedBin.max, p.ranges.tearFallSpeed_mm_s) : 'not_compared'
+  const countBin = o.tearCount ? TEAR_COUNT_BINS[o.tearCount] : null
+  const count = countBin ? against(countBin.min, countBin.max ?? Number.POSITIVE_INFINITY, p.ranges.tearsAround) : 'not_compared'
+  const tears = o.tearsFormed === 'unsure' ? 'not_compared' : (o.tearsFormed === 'yes') === p.tearsExpected ? 'agrees' : 'disagrees'
+  return { band, speed, count, tears }
+}

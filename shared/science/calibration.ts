@@ -19,6 +19,18 @@ export interface ModelParameters {
 
 export const PUBLISHED_PARAMETERS: ModelParameters = { exchangeFactor: 1, massTransferFactor: 1 }
 
+/**
+ * A calibration a prediction uses: `computeFilm(inputs, { calibration })` runs its central value with
+ * `parameters` and draws its ranges from the posterior (sdLn) instead of the published spreads of
+ * those two parameters. FilmResult.calibration echoes it (null: published defaults).
+ */
+export interface AppliedCalibration {
+  parameters: ModelParameters
+  sdLn: { exchangeFactor: number, massTransferFactor: number }
+  /** How many observations (after one-device-one-vote) it rests on, for the sentence that says so. */
+  observations: number
+}
+
 /** One observation as the fit sees it: the pour's numbers, the glass, the room, what was seen. */
 export interface FitObservation {
   /** Glass shape the parameters belong to (a glass record's id as text). */
