@@ -146,6 +146,15 @@ export function wallTransfer(input: {
   /** Water vapour mole fraction of the room air. */
   roomYWater: number
   motion: AirMotion
+  /**
+   * Multiplier of the coefficients k_E, k_W and h (1 = the correlations as published): the
+   * calibration's massTransferFactor (docs/science.md, "Calibration from observations"). One
+   * factor for all three because one boundary layer carries the two vapours and the heat: the
+   * Chilton–Colburn analogy (Bird, Stewart & Lightfoot, 2nd ed., §22.3 — from memory) makes
+   * Sh/Sc^⅓ = Nu/Pr^⅓, so whatever the correlations get wrong about the air (draught, plate
+   * length, the glass's surroundings) moves k and h together.
+   */
+  transferFactor?: number
 }): WallTransfer {
   const Tm = 0.5 * (input.surfaceT_K + input.airT_K)
   const rhoS = moistAirDensity_kg_m3(input.surfaceT_K, input.surfaceYEthanol, input.surfaceYWater)
@@ -165,10 +174,11 @@ export function wallTransfer(input: {
     const sh = Math.cbrt(naturalConvectionSherwood(gr * sc, sc) ** 3 + forcedConvectionSherwood(re, sc) ** 3)
     return (sh * diffusivity) / L
   }
+  const factor = input.transferFactor ?? 1
   return {
-    kEthanol_m_s: coefficient(dE),
-    kWater_m_s: coefficient(dW),
-    hAir_W_m2_K: (coefficient(alphaAir) / alphaAir) * kAir,
+    kEthanol_m_s: coefficient(dE) * factor,
+    kWater_m_s: coefficient(dW) * factor,
+    hAir_W_m2_K: (coefficient(alphaAir) / alphaAir) * kAir * factor,
     diffusivityEthanol_m2_s: dE,
     diffusivityWater_m2_s: dW,
     grashof: gr,

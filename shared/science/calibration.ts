@@ -1,11 +1,22 @@
 /**
- * Calibration of the glass model from what guests and hosts saw (docs/science.md, "Calibration").
- * Pure functions, no framework imports. CONTRACT ONLY in this commit: the types below are what the
- * server and the manager's pages use; the science engineer replaces the body of `calibrate` with the
- * documented method and its tests. Until then every group keeps the published defaults.
+ * Calibration of the glass model from what guests and hosts saw (docs/science.md, "Calibration from
+ * observations"). Pure functions, no framework imports.
+ *
+ * Method: a Bayesian fit of two log multipliers per glass (θ = ln exchangeFactor, ln
+ * massTransferFactor) with a Gaussian prior centred on the published defaults, the reading scatter's
+ * scale estimated from the data (scaled-inverse-χ² prior), band readings as normal observations with
+ * "no clear band" and the scale's end as censored ones, tear-speed bins as interval-censored
+ * judgements, and the posterior by the Laplace approximation at its mode with the model relinearised
+ * at the mode (Gauss–Newton). Gelman, Carlin, Stern, Dunson, Vehtari & Rubin, Bayesian Data
+ * Analysis, 3rd ed. (2013): ch. 2–3 (normal model, scaled-inverse-χ² prior on a variance), §4.1 (the
+ * normal approximation at the mode), ch. 5 (hierarchical models, partial pooling), §6.3 (posterior
+ * predictive checks), §8 (censored and rounded data), §13.3 (finding the mode, Newton's method) —
+ * from memory: chapter numbers as recalled, not checked against the book.
  */
 import type { DrinkKind, RoomAir } from './glassModel'
+import { calibrationRun } from './glassModel'
 import type { ObservedSince, TearCount, TearSpeed, TearsFormed } from '../observations'
+import { BAND_READING_MAX_MM, OBSERVED_MINUTES_MAX, TEAR_SPEED_BINS_MM_S } from '../observations'
 
 /**
  * The model parameters the observations can identify, as multipliers of the published defaults
@@ -27,6 +38,8 @@ export const PUBLISHED_PARAMETERS: ModelParameters = { exchangeFactor: 1, massTr
 export interface AppliedCalibration {
   parameters: ModelParameters
   sdLn: { exchangeFactor: number, massTransferFactor: number }
+  /** Posterior correlation of ln(exchangeFactor) and ln(massTransferFactor) (absent: 0). */
+  correlation?: number
   /** How many observations (after one-device-one-vote) it rests on, for the sentence that says so. */
   observations: number
 }
@@ -64,11 +77,21 @@ export interface GroupCalibration {
   /** Observations used and the devices they came from (after one-device-one-vote). */
   observations: number
   devices: number
-  /** Posterior means of the multipliers, and their 80 % intervals. */
+  /** Entries before one-device-one-vote (a device's repeated entries for one pour count once). */
+  entries: number
+  /** Posterior medians of the multipliers, exp(posterior mean of ln multiplier), and their 80 % intervals. */
   parameters: ModelParameters
   intervals: { exchangeFactor: [number, number], massTransferFactor: [number, number] }
   /** Posterior standard deviations of ln(multiplier). */
   sdLn: { exchangeFactor: number, massTransferFactor: number }
+  /** Posterior correlation of the two ln multipliers. */
+  correlation: number
+  /**
+   * The fit check: the band's scatter beyond reading error, as a fraction of the band (posterior
+   * mode of s; null without band readings), and the speed judgements' log score against what the
+   * fitted model expects, in standard deviations (null without speed judgements; below −3 fails).
+   */
+  fit: { bandScatter: number | null, speedScoreZ: number | null }
   /**
    * 'applied': uncertainty below the documented threshold and the observations fit the model —
    * predictions use `parameters`; 'too_few': shrunk to the defaults; 'does_not_fit': the scatter is
@@ -81,17 +104,536 @@ export interface CalibrationResult {
   groups: GroupCalibration[]
 }
 
-/** Fits every glass (and glass-in-room once it has enough) from the observations. */
-export function calibrate(observations: FitObservation[]): CalibrationResult {
-  const byGlass = new Map<string, FitObservation[]>()
-  for (const o of observations) byGlass.set(o.glassKey, [...(byGlass.get(o.glassKey) ?? []), o])
-  return {
-    groups: [...byGlass].map(([glassKey, list]) => ({
-      glassKey, roomKey: null, observations: list.length, devices: new Set(list.map(o => o.deviceKey)).size,
-      parameters: { ...PUBLISHED_PARAMETERS },
-      intervals: { exchangeFactor: [0.5, 2], massTransferFactor: [0.5, 2] },
-      sdLn: { exchangeFactor: Math.log(2), massTransferFactor: Math.log(2) },
-      status: 'too_few',
-    })),
+/**
+ * Prior widths, sd of ln(multiplier) (docs/science.md, "Calibration from observations"):
+ * - exchangeFactor: ln 2 — the published "×/÷ 2" on f (climbingFilm.ts) read as one standard deviation;
+ * - massTransferFactor: 0.35 (×/÷ 1.42) — the published draught spread (0.05–0.2 m/s moves k by
+ *   ×/÷ 1.27 end to end, sd 0.14 in ln k) widened for what it leaves out: the correlations' own
+ *   accuracy, the 4 cm plate length and a bowl that is not a flat plate (estimate).
+ */
+export const CALIBRATION_PRIOR_SD_LN = { exchangeFactor: Math.log(2), massTransferFactor: 0.35 } as const
+
+/**
+ * A band reading's error, mm, 1σ: an eye reading a printed millimetre scale held against a curved
+ * glass, the band's top a soft edge (estimate, no source). The scatter beyond it is estimated.
+ */
+export const BAND_READING_SD_MM = 2
+
+/**
+ * Prior on the band's relative scatter s (between glasses, moments and observers): scaled-inverse-χ²
+ * on s² with ν0 = 4 pseudo-observations at s0 = 0.25 (estimate; BDA3 ch. 3, from memory).
+ */
+const SCATTER_PRIOR = { nu0: 4, s0: 0.25 } as const
+
+/**
+ * A guest's judgement of a tear's speed, sd of ln(speed), 1σ: counting the seconds a tear takes over a
+ * centimetre by eye (estimate, no source), and a lapse share: a guest taps a bin at random this often
+ * (estimate; keeps one stray tap from ruling the fit).
+ */
+export const SPEED_JUDGEMENT_SD_LN = 0.3
+const SPEED_LAPSE = 0.05
+
+/**
+ * 'applied' needs both posterior sdLn ≤ this (the 80 % interval inside ×/÷ 1.38, against the
+ * published ×/÷ 2 on f), at least CALIBRATION_MIN_VOTES votes and the fit check passed.
+ */
+export const CALIBRATION_APPLY_SD_LN = 0.25
+/** Votes (one device at one pour) below which a group stays 'too_few' whatever its sdLn: the scatter's scale then rests on its prior. */
+export const CALIBRATION_MIN_VOTES = 12
+/** The fit check: the band's relative scatter beyond reading error above this fails (±40 % at 1σ). */
+export const CALIBRATION_MAX_BAND_SCATTER = 0.4
+/** The fit check: speed judgements' log score more than this many sd below its expectation fails. */
+const SPEED_SCORE_MIN_Z = -3
+/** A room's own group is reported once it has this many votes for the glass. */
+export const CALIBRATION_MIN_ROOM_VOTES = 12
+/** The hierarchical room level: sd of a room's deviation of each ln multiplier from its glass (draughts, observers; estimate). */
+export const CALIBRATION_ROOM_SD_LN = 0.2
+
+/** Options of calibrate; every field defaults to the documented constant above. */
+export interface CalibrateOptions {
+  priorSdLn?: { exchangeFactor: number, massTransferFactor: number }
+  applySdLn?: number
+  minVotes?: number
+  minRoomVotes?: number
+  roomSdLn?: number
+}
+
+/** One device's vote at one pour: its entries aggregated. */
+interface Vote {
+  glassKey: string
+  roomKey: string
+  deviceKey: string
+  entries: number
+  base: FitObservation
+  minutes: number
+  band: number | null
+  noClearBand: boolean
+  speed: TearSpeed | null
+}
+
+const median = (xs: number[]): number => {
+  const s = [...xs].sort((a, b) => a - b)
+  const m = Math.floor(s.length / 2)
+  return s.length % 2 ? s[m]! : 0.5 * (s[m - 1]! + s[m]!)
+}
+
+/** The most frequent value; on a tie the one nearest the middle of `order` (a device saying slow and fast once each said steady). */
+function mode<T extends string>(values: T[], order: readonly T[]): T | null {
+  if (!values.length) return null
+  const counts = new Map<T, number>()
+  for (const v of values) counts.set(v, (counts.get(v) ?? 0) + 1)
+  const top = Math.max(...counts.values())
+  const tied = [...counts].filter(([, n]) => n === top).map(([v]) => v)
+  if (tied.length === 1) return tied[0]!
+  const idx = tied.map(v => order.indexOf(v))
+  const mid = Math.round(idx.reduce((a, b) => a + b, 0) / idx.length)
+  return order[mid] ?? tied[0]!
+}
+
+/** One device at one pour of one session counts once: median band, majority on "no clear band", modal speed, median minutes. */
+function votesOf(observations: FitObservation[]): Vote[] {
+  const by = new Map<string, FitObservation[]>()
+  for (const o of observations) {
+    const key = JSON.stringify([o.glassKey, o.roomKey, o.deviceKey])
+    const list = by.get(key)
+    if (list) list.push(o)
+    else by.set(key, [o])
   }
+  const votes: Vote[] = []
+  for (const list of by.values()) {
+    const first = list[0]!
+    const bands = list.filter(o => !o.noClearBand && o.bandHeightMm !== null && Number.isFinite(o.bandHeightMm)).map(o => o.bandHeightMm!)
+    const none = list.filter(o => o.noClearBand).length
+    const seenTears = list.filter(o => o.tearsFormed !== 'no')
+    const speeds = seenTears.map(o => o.tearSpeed).filter((s): s is TearSpeed => s !== null)
+    votes.push({
+      glassKey: first.glassKey, roomKey: first.roomKey, deviceKey: first.deviceKey, entries: list.length, base: first,
+      minutes: median(list.map(o => Math.min(OBSERVED_MINUTES_MAX, Math.max(0, o.minutesSince)))),
+      band: none > bands.length || !bands.length ? null : median(bands),
+      noClearBand: none > bands.length,
+      speed: mode(speeds, ['slow', 'steady', 'fast'] as const),
+    })
+  }
+  return votes
+}
+
+/** Linearised model for one vote: ln H and ln U at θ0 with their gradients in θ = (ln f, ln k). */
+interface Linear {
+  theta0: [number, number]
+  lnH: number
+  gH: [number, number]
+  lnU: number | null
+  gU: [number, number]
+  visibleMin_mm: number
+}
+
+/** Step of the forward differences in ln multiplier. */
+const DIFF_STEP = 0.05
+/** The ABV step of the secant that carries a pour's loss of alcohol into its band and speed, % vol. */
+const ABV_SECANT_PCT_VOL = 1
+/** Linearisation points are rounded to this (ln units) so that groups share the pour's runs. */
+const THETA_GRID = 0.02
+
+type Run = ReturnType<typeof calibrationRun>
+type RunInputs = Parameters<typeof calibrationRun>[0]
+
+/** The room a vote's reading gives, rounded (the hygrometer reads ±4 % RH, uncertainty.ts) so that votes share runs. */
+const roundedRoom = (r: RoomAir): RoomAir => ({ relativeHumidityPct: Math.round(r.relativeHumidityPct), airTempC: Math.round(4 * r.airTempC) / 4 })
+
+/** The pour as served, without its room. */
+const pourOf = (o: FitObservation) => ({
+  abvPctVol: o.abvPctVol, tempC: o.tempC, sugarGL: o.sugarGL, wallAngleDeg: o.wallAngleDeg, bowlDiameterMm: o.bowlDiameterMm,
+  pourVolumeMl: o.pourVolumeMl, kind: o.kind,
+})
+
+/**
+ * The model runs of one calibrate call, memoised per distinct condition and parameter point.
+ *
+ * Gauss–Newton with the residuals exact and the Jacobian shared (docs/science.md): at a
+ * linearisation point θL each vote's ln H and ln U are its own condition's model values at θL (one
+ * run per pour and room reading), shifted by the pour's loss of alcohol since pouring (a secant in
+ * ABV per pour); their gradients in θ are the pour's, computed at a reference room (the mean of its
+ * votes' readings). Relinearising until θL stops moving makes the mode solve the estimating equations
+ * with exact residuals; the shared gradient changes only the path and, by a few hundredths, the
+ * posterior's width.
+ */
+class ModelCache {
+  private runs = new Map<string, Run | null>()
+  private references = new Map<string, RoomAir>()
+  count = 0
+
+  constructor(votes: Vote[]) {
+    const rooms = new Map<string, RoomAir[]>()
+    for (const v of votes) {
+      const key = JSON.stringify(pourOf(v.base))
+      rooms.set(key, [...(rooms.get(key) ?? []), v.base.room])
+    }
+    for (const [key, list] of rooms) {
+      const mean = (f: (r: RoomAir) => number): number => list.reduce((s, r) => s + f(r), 0) / list.length
+      this.references.set(key, roundedRoom({ relativeHumidityPct: mean(r => r.relativeHumidityPct), airTempC: mean(r => r.airTempC) }))
+    }
+  }
+
+  private run(inputs: RunInputs, a: number, b: number): Run | null {
+    const key = JSON.stringify([inputs, a, b])
+    if (this.runs.has(key)) return this.runs.get(key)!
+    let r: Run | null
+    try {
+      r = calibrationRun(inputs, { exchangeFactor: Math.exp(a), massTransferFactor: Math.exp(b) })
+      this.count++
+      if (!r.tearsExpected || !(r.clearBandHeight_mm > 0)) r = null
+    }
+    catch {
+      r = null // outside the model's ranges: the vote is left out
+    }
+    this.runs.set(key, r)
+    return r
+  }
+
+  /** ln H, ln U (null when no tears) of a run. */
+  private static logs(r: Run): [number, number | null] {
+    return [Math.log(r.clearBandHeight_mm), r.tearFallSpeed_mm_s !== null && r.tearFallSpeed_mm_s > 0 ? Math.log(r.tearFallSpeed_mm_s) : null]
+  }
+
+  /**
+   * The pour's ABV after `minutes` of standing: it loses alcoholLossPer10Min_pct of its alcohol per
+   * 10 minutes (its own condition at the published parameters), compounded. Minutes since a swirl
+   * are a lower bound on the minutes since the pour and are used as such.
+   */
+  private static abvAfter(abv: number, lossPct: number, minutes: number): number {
+    return minutes > 0 ? abv * (1 - lossPct / 100) ** (minutes / 10) : abv
+  }
+
+  /** The vote's model, linearised at θL (null: no film climbs or no tears at its condition, or outside the ranges). */
+  linear(v: Vote, thetaL: [number, number]): Linear | null {
+    const pour = pourOf(v.base)
+    const mine = { ...pour, room: roundedRoom(v.base.room) }
+    const own0 = this.run(mine, 0, 0)
+    const ref = this.references.get(JSON.stringify(pour))
+    if (!own0 || !ref) return null
+    const [a, b] = thetaL.map(t => Math.round(t / THETA_GRID) * THETA_GRID) as [number, number]
+    const own = this.run(mine, a, b)
+    const at = { ...pour, room: ref }
+    const pc = this.run(at, a, b)
+    const pa = this.run(at, a + DIFF_STEP, b)
+    const pb = this.run(at, a, b + DIFF_STEP)
+    const lower = Math.max(0, pour.abvPctVol - ABV_SECANT_PCT_VOL)
+    const p0 = this.run(at, 0, 0)
+    const pd = lower < pour.abvPctVol ? this.run({ ...at, abvPctVol: lower }, 0, 0) : null
+    if (!own || !pc || !pa || !pb || !p0) return null
+    const [ownH, ownU] = ModelCache.logs(own)
+    const [hc, uc] = ModelCache.logs(pc)
+    const [ha, ua] = ModelCache.logs(pa)
+    const [hb, ub] = ModelCache.logs(pb)
+    const [h0, u0] = ModelCache.logs(p0)
+    const [hd, ud] = pd ? ModelCache.logs(pd) : [h0, u0]
+    const dAbv = ModelCache.abvAfter(pour.abvPctVol, own0.alcoholLossPer10Min_pct, v.minutes) - pour.abvPctVol
+    const slope = (x0: number, x1: number): number => (lower < pour.abvPctVol ? (x0 - x1) / (pour.abvPctVol - lower) : 0)
+    const speedOk = ownU !== null && u0 !== null && uc !== null && ua !== null && ub !== null && ud !== null
+    return {
+      theta0: [a, b],
+      lnH: ownH + slope(h0, hd) * dAbv,
+      gH: [(ha - hc) / DIFF_STEP, (hb - hc) / DIFF_STEP],
+      lnU: speedOk ? ownU + slope(u0, ud) * dAbv : null,
+      gU: speedOk ? [(ua - uc) / DIFF_STEP, (ub - uc) / DIFF_STEP] : [0, 0],
+      visibleMin_mm: own0.visibleBandMin_mm,
+    }
+  }
+}
+
+/** Standard normal cdf (Abramowitz & Stegun 7.1.26 for erf, |error| < 1.5e-7 — from memory). */
+function phi(z: number): number {
+  const x = Math.abs(z) / Math.SQRT2
+  const t = 1 / (1 + 0.3275911 * x)
+  const y = 1 - (((((1.061405429 * t - 1.453152027) * t) + 1.421413741) * t - 0.284496736) * t + 0.254829592) * t * Math.exp(-x * x)
+  return z >= 0 ? 0.5 * (1 + y) : 0.5 * (1 - y)
+}
+
+/** ln Φ(z), kept finite far in the lower tail (asymptotic form below −8). */
+function logPhi(z: number): number {
+  if (z > -8) return Math.log(Math.max(1e-300, phi(z)))
+  return -0.5 * z * z - Math.log(-z) - 0.5 * Math.log(2 * Math.PI)
+}
+
+const SPEED_ORDER = ['slow', 'steady', 'fast'] as const
+
+/** Probability of one speed bin for a model speed exp(lnU), with the guest's judgement and lapses. */
+function speedProbability(lnU: number, bin: TearSpeed): number {
+  const { min, max } = TEAR_SPEED_BINS_MM_S[bin]
+  const hi = Number.isFinite(max) ? phi((Math.log(max) - lnU) / SPEED_JUDGEMENT_SD_LN) : 1
+  const lo = min > 0 ? phi((Math.log(min) - lnU) / SPEED_JUDGEMENT_SD_LN) : 0
+  return (1 - SPEED_LAPSE) * Math.max(0, hi - lo) + SPEED_LAPSE / 3
+}
+
+/** Probabilities of the three speed bins. */
+const speedProbabilities = (lnU: number): number[] => SPEED_ORDER.map(bin => speedProbability(lnU, bin))
+
+interface Datum { v: Vote, lin: Linear }
+
+/** The group's posterior at its mode, by the Laplace approximation (BDA3 §4.1, §13.3, from memory). */
+interface Posterior {
+  mean: [number, number]
+  cov: [[number, number], [number, number]]
+  scatter: number | null
+  speedScoreZ: number | null
+}
+
+/** Negative log posterior of (ln f, ln k, ln s) for linearised data and a Gaussian prior (mean m0, covariance P0). */
+function negLogPosterior(data: Datum[], m0: [number, number], P0inv: [[number, number], [number, number]]): (x: number[]) => number {
+  const { nu0, s0 } = SCATTER_PRIOR
+  const hasBand = data.some(d => d.v.band !== null || d.v.noClearBand)
+  return (x: number[]) => {
+    const [a, b, t] = x as [number, number, number]
+    const s2 = Math.exp(2 * t)
+    const r2 = BAND_READING_SD_MM * BAND_READING_SD_MM
+    let nll = 0
+    for (const { v, lin } of data) {
+      const da = a - lin.theta0[0]
+      const db = b - lin.theta0[1]
+      if (v.band !== null || v.noClearBand) {
+        const H = Math.exp(lin.lnH + lin.gH[0] * da + lin.gH[1] * db)
+        const sd = Math.sqrt(r2 + s2 * H * H)
+        if (v.noClearBand) nll -= logPhi((lin.visibleMin_mm - H) / sd) // censored: the band stayed below a visible one
+        else if (v.band! >= BAND_READING_MAX_MM) nll -= logPhi((H - BAND_READING_MAX_MM) / sd) // at the scale's end: at least that
+        else nll += Math.log(sd) + ((v.band! - H) ** 2) / (2 * sd * sd)
+      }
+      if (v.speed !== null && lin.lnU !== null) {
+        nll -= Math.log(speedProbability(lin.lnU + lin.gU[0] * da + lin.gU[1] * db, v.speed))
+      }
+    }
+    const d0 = a - m0[0]
+    const d1 = b - m0[1]
+    const prior = 0.5 * (P0inv[0][0] * d0 * d0 + 2 * P0inv[0][1] * d0 * d1 + P0inv[1][1] * d1 * d1)
+    // scaled-inverse-χ²(ν0, s0²) on s², written for t = ln s (Jacobian included): ν0 t + ν0 s0²/(2 s²)
+    const scale = hasBand ? nu0 * t + (nu0 * s0 * s0) / (2 * s2) : 0.5 * (t - Math.log(s0)) ** 2
+    return nll + prior + scale
+  }
+}
+
+/** Finite-difference gradient and Hessian of f at x (central differences). */
+function derivatives(f: (x: number[]) => number, x: number[], h = 1e-4): { g: number[], H: number[][], f0: number } {
+  const n = x.length
+  const f0 = f(x)
+  const g = new Array<number>(n).fill(0)
+  const H = Array.from({ length: n }, () => new Array<number>(n).fill(0))
+  const at = (d: [number, number][]): number => {
+    const y = [...x]
+    for (const [i, s] of d) y[i]! += s
+    return f(y)
+  }
+  for (let i = 0; i < n; i++) {
+    const fp = at([[i, h]])
+    const fm = at([[i, -h]])
+    g[i] = (fp - fm) / (2 * h)
+    H[i]![i] = (fp - 2 * f0 + fm) / (h * h)
+    for (let j = 0; j < i; j++) {
+      const v = (at([[i, h], [j, h]]) - at([[i, h], [j, -h]]) - at([[i, -h], [j, h]]) + at([[i, -h], [j, -h]])) / (4 * h * h)
+      H[i]![j] = v
+      H[j]![i] = v
+    }
+  }
+  return { g, H, f0 }
+}
+
+/** Solves A x = b for a small symmetric matrix by Gaussian elimination with partial pivoting (null if singular). */
+function solve(A: number[][], b: number[]): number[] | null {
+  const n = b.length
+  const M = A.map((row, i) => [...row, b[i]!])
+  for (let c = 0; c < n; c++) {
+    let p = c
+    for (let r = c + 1; r < n; r++) if (Math.abs(M[r]![c]!) > Math.abs(M[p]![c]!)) p = r
+    if (!(Math.abs(M[p]![c]!) > 1e-12)) return null
+    ;[M[c], M[p]] = [M[p]!, M[c]!]
+    for (let r = 0; r < n; r++) {
+      if (r === c) continue
+      const k = M[r]![c]! / M[c]![c]!
+      for (let k2 = c; k2 <= n; k2++) M[r]![k2]! -= k * M[c]![k2]!
+    }
+  }
+  return M.map((row, i) => row[n]! / row[i]!)
+}
+
+function invert(A: number[][]): number[][] | null {
+  const n = A.length
+  const cols: number[][] = []
+  for (let j = 0; j < n; j++) {
+    const e = new Array<number>(n).fill(0)
+    e[j] = 1
+    const c = solve(A, e)
+    if (!c) return null
+    cols.push(c)
+  }
+  return A.map((_, i) => cols.map(c => c[i]!))
+}
+
+/** Damped Newton (Levenberg–Marquardt on the Hessian) to the mode of f from x0. */
+
+function findMode(f: (x: number[]) => number, x0: number[]): { x: number[], H: number[][] } {
+  let x = [...x0]
+  let lambda = 1e-3
+  let d = derivatives(f, x)
+  for (let it = 0; it < 60; it++) {
+    const A = d.H.map((row, i) => row.map((v, j) => v + (i === j ? lambda * Math.max(1, Math.abs(d.H[i]![i]!)) : 0)))
+    const step = solve(A, d.g.map(v => -v))
+    if (!step) {
+      lambda *= 10
+      continue
+    }
+    const cap = Math.max(...step.map(Math.abs))
+    const scaled = cap > 1 ? step.map(s => s / cap) : step // no step longer than 1 in ln units
+    const y = x.map((v, i) => v + scaled[i]!)
+    const fy = f(y)
+
+    if (Number.isFinite(fy) && fy <= d.f0) {
+      const small = Math.max(...scaled.map(Math.abs)) < 1e-6 || d.f0 - fy < 1e-10
+      x = y
+      lambda = Math.max(1e-6, lambda / 4)
+      d = derivatives(f, x)
+      if (small) break
+    }
+    else {
+      lambda *= 8
+      if (lambda > 1e8) break
+    }
+  }
+  return { x, H: d.H }
+}
+
+/**
+ * The posterior of one group: mode by damped Newton on the linearised model, relinearised at the mode
+ * until it stays in the same THETA_GRID cell (at most 5 passes), then the Laplace covariance of (ln f, ln k)
+ * from the inverse Hessian (the scale s integrated out in the same approximation).
+ */
+function fitGroup(votes: Vote[], cache: ModelCache, m0: [number, number], P0: [[number, number], [number, number]]): { post: Posterior, used: Vote[] } | null {
+  const P0inv = invert(P0) as [[number, number], [number, number]]
+  let theta: [number, number] = [m0[0], m0[1]]
+  let x = [theta[0], theta[1], Math.log(SCATTER_PRIOR.s0)]
+  let data: Datum[] = []
+  let H: number[][] = []
+  for (let pass = 0; pass < 5; pass++) {
+    data = []
+    for (const v of votes) {
+      if (v.band === null && !v.noClearBand && v.speed === null) continue
+      const lin = cache.linear(v, theta)
+      if (lin && (v.band !== null || v.noClearBand || lin.lnU !== null)) data.push({ v, lin })
+    }
+    if (!data.length) return null
+    const nlp = negLogPosterior(data, m0, P0inv)
+    const m = findMode(nlp, x)
+    x = m.x
+    H = m.H
+    const grid = (t: number): number => Math.round(t / THETA_GRID)
+    const same = grid(x[0]!) === grid(theta[0]) && grid(x[1]!) === grid(theta[1])
+    theta = [x[0]!, x[1]!]
+    if (same) break
+  }
+  const inv = invert(H)
+  const cov: [[number, number], [number, number]] = inv && inv[0]![0]! > 0 && inv[1]![1]! > 0
+    ? [[inv[0]![0]!, inv[0]![1]!], [inv[1]![0]!, inv[1]![1]!]]
+    : P0
+  const hasBand = data.some(d => d.v.band !== null || d.v.noClearBand)
+  return { post: { mean: theta, cov, scatter: hasBand ? Math.exp(x[2]!) : null, speedScoreZ: speedScore(data, theta) }, used: data.map(d => d.v) }
+}
+
+/**
+ * Posterior predictive check of the speed judgements (BDA3 §6.3, from memory): their summed log
+ * probability under the fitted model against its expectation and variance if the model were right.
+ */
+function speedScore(data: Datum[], theta: [number, number]): number | null {
+  let obs = 0
+  let mean = 0
+  let variance = 0
+  let n = 0
+  for (const { v, lin } of data) {
+    if (v.speed === null || lin.lnU === null) continue
+    const p = speedProbabilities(lin.lnU + lin.gU[0] * (theta[0] - lin.theta0[0]) + lin.gU[1] * (theta[1] - lin.theta0[1]))
+    const lp = p.map(Math.log)
+    const e = p.reduce((s, pi, i) => s + pi * lp[i]!, 0)
+    const e2 = p.reduce((s, pi, i) => s + pi * lp[i]! * lp[i]!, 0)
+    obs += lp[SPEED_ORDER.indexOf(v.speed)]!
+    mean += e
+    variance += e2 - e * e
+    n++
+  }
+  if (!n) return null
+  return variance > 1e-12 ? (obs - mean) / Math.sqrt(variance) : 0
+}
+
+const Z80 = 1.2815515655446004 // 90th percentile of the standard normal
+
+function groupResult(glassKey: string, roomKey: string | null, votes: Vote[], fitted: { post: Posterior, used: Vote[] } | null, o: Required<CalibrateOptions>, priorSd: [number, number]): GroupCalibration {
+  const mean = fitted?.post.mean ?? [0, 0]
+  const cov = fitted?.post.cov ?? [[priorSd[0] ** 2, 0], [0, priorSd[1] ** 2]]
+  const sa = Math.sqrt(cov[0][0])
+  const sb = Math.sqrt(cov[1][1])
+  const used = fitted?.used ?? []
+  const scatter = fitted?.post.scatter ?? null
+  const speedZ = fitted?.post.speedScoreZ ?? null
+  const enough = used.length >= o.minVotes
+  const fits = (scatter === null || scatter <= CALIBRATION_MAX_BAND_SCATTER) && (speedZ === null || speedZ >= SPEED_SCORE_MIN_Z)
+  const status: GroupCalibration['status'] = enough && !fits ? 'does_not_fit' : enough && sa <= o.applySdLn && sb <= o.applySdLn ? 'applied' : 'too_few'
+  const interval = (m: number, s: number): [number, number] => [Math.exp(m - Z80 * s), Math.exp(m + Z80 * s)]
+  return {
+    glassKey, roomKey,
+    observations: used.length,
+    devices: new Set(used.map(v => v.deviceKey)).size,
+    entries: votes.reduce((s, v) => s + v.entries, 0),
+    parameters: { exchangeFactor: Math.exp(mean[0]), massTransferFactor: Math.exp(mean[1]) },
+    intervals: { exchangeFactor: interval(mean[0], sa), massTransferFactor: interval(mean[1], sb) },
+    sdLn: { exchangeFactor: sa, massTransferFactor: sb },
+    correlation: sa > 0 && sb > 0 ? cov[0][1] / (sa * sb) : 0,
+    fit: { bandScatter: scatter, speedScoreZ: speedZ },
+    status,
+  }
+}
+
+/**
+ * Fits every glass, and every glass in a room once that room has CALIBRATION_MIN_ROOM_VOTES votes,
+ * from the observations. A room's prior is its glass's posterior from the other rooms (leave that
+ * room out, so its votes are not counted twice) widened by CALIBRATION_ROOM_SD_LN: partial pooling,
+ * a room's deviation shrunk toward its glass (BDA3 ch. 5, from memory).
+ */
+export function calibrate(observations: FitObservation[], options: CalibrateOptions = {}): CalibrationResult {
+  const o: Required<CalibrateOptions> = {
+    priorSdLn: options.priorSdLn ?? CALIBRATION_PRIOR_SD_LN,
+    applySdLn: options.applySdLn ?? CALIBRATION_APPLY_SD_LN,
+    minVotes: options.minVotes ?? CALIBRATION_MIN_VOTES,
+    minRoomVotes: options.minRoomVotes ?? CALIBRATION_MIN_ROOM_VOTES,
+    roomSdLn: options.roomSdLn ?? CALIBRATION_ROOM_SD_LN,
+  }
+  const priorSd: [number, number] = [o.priorSdLn.exchangeFactor, o.priorSdLn.massTransferFactor]
+  const P0: [[number, number], [number, number]] = [[priorSd[0] ** 2, 0], [0, priorSd[1] ** 2]]
+  const all = votesOf(observations)
+  const cache = new ModelCache(all)
+  const byGlass = new Map<string, Vote[]>()
+  for (const v of all) {
+    const list = byGlass.get(v.glassKey)
+    if (list) list.push(v)
+    else byGlass.set(v.glassKey, [v])
+  }
+  const groups: GroupCalibration[] = []
+  for (const [glassKey, votes] of [...byGlass].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
+    groups.push(groupResult(glassKey, null, votes, fitGroup(votes, cache, [0, 0], P0), o, priorSd))
+    const byRoom = new Map<string, Vote[]>()
+    for (const v of votes) byRoom.set(v.roomKey, [...(byRoom.get(v.roomKey) ?? []), v])
+    for (const [roomKey, mine] of [...byRoom].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
+      // a room's own group means something only against the glass's other rooms
+      if (byRoom.size < 2 || mine.length < o.minRoomVotes) continue
+      const others = votes.filter(v => v.roomKey !== roomKey)
+      const rest = others.length ? fitGroup(others, cache, [0, 0], P0) : null
+      const m0 = rest?.post.mean ?? [0, 0]
+      const c0 = rest?.post.cov ?? P0
+      const t2 = o.roomSdLn ** 2
+      const roomPrior: [[number, number], [number, number]] = [[c0[0][0] + t2, c0[0][1]], [c0[1][0], c0[1][1] + t2]]
+      const fitted = fitGroup(mine, cache, [m0[0], m0[1]], roomPrior)
+      groups.push(groupResult(glassKey, roomKey, mine, fitted, o, [Math.sqrt(roomPrior[0][0]), Math.sqrt(roomPrior[1][1])]))
+    }
+  }
+  return { groups }
+}
+
+/** The calibration a prediction uses for a group, or null unless its status is 'applied'. */
+export function appliedCalibration(g: GroupCalibration): AppliedCalibration | null {
+  if (g.status !== 'applied') return null
+  return { parameters: { ...g.parameters }, sdLn: { ...g.sdLn }, correlation: g.correlation, observations: g.observations }
 }

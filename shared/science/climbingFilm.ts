@@ -89,8 +89,10 @@ export interface FilmPhysicsInput {
   /** Inside diameter of the bowl at the liquid line, mm (sets how many tears fit around). */
   bowlDiameterMm: number
   motion: AirMotion
-  /** Fraction exchanged by the band's top (FILM_EXCHANGE_FRACTION unless a range is being sampled). */
+  /** Fraction exchanged by the band's top (FILM_EXCHANGE_FRACTION unless a range is being sampled or a calibration applies). */
   exchangeFraction: number
+  /** Multiplier of the air's transfer coefficients k_E, k_W and h (1 = published; the calibration's massTransferFactor; air.ts wallTransfer). */
+  massTransferFactor?: number
   /** Multipliers for the uncertainty ranges (1 = nominal). */
   factors?: FilmFactors
 }
@@ -196,7 +198,7 @@ function filmExchange(input: FilmPhysicsInput, bandHeight_m: number, meanCooling
   const t = wallTransfer({
     surfaceT_K: Ts, airT_K: Ta,
     surfaceYEthanol: v.pEthanol_Pa / STANDARD_ATMOSPHERE_PA, surfaceYWater: v.pWater_Pa / STANDARD_ATMOSPHERE_PA,
-    roomYWater: pRoom / STANDARD_ATMOSPHERE_PA, motion: input.motion,
+    roomYWater: pRoom / STANDARD_ATMOSPHERE_PA, motion: input.motion, transferFactor: input.massTransferFactor,
   })
   const R = GAS_CONSTANT_J_MOL_K
   const nE = (t.kEthanol_m_s * v.pEthanol_Pa) / (R * Ts) // mol/(m²·s)

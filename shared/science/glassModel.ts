@@ -16,6 +16,7 @@ import {
 import { viscosityHydroalcoholic_mPa_s, sugarViscosityFactor } from './viscosity'
 import { mixtureSigmaUnchecked as mixtureSigma } from './surfaceTension'
 import { activityCoefficientsGlass, findAzeotrope, isothermalAzeotropeMoleFraction } from './vle'
+import type { AppliedCalibration, ModelParameters } from './calibration'
 
 /**
  * Default wall angle, degrees from horizontal: the bowl of a typical tulip-shaped glass leans
@@ -180,6 +181,18 @@ export interface FilmResult {
   predictions: TearPrediction
   /** Tear fall speed if the liquid had the solvent's viscosity (no sugar), mm/s (null if no tears). */
   tearFallSpeedUnsweetened_mm_s: number | null
+  /** The calibration the central values and ranges used (null: the published parameters and spreads). */
+  calibration: AppliedCalibration | null
+}
+
+/** Options of computeFilm. */
+export interface FilmOptions {
+  /**
+   * A calibration from observations (calibration.ts): the central run uses its parameters, and the
+   * ranges draw the two calibrated multipliers from its posterior instead of the published spreads
+   * of the exchanged fraction (×/÷ 2) and of the room's draughts (0.05–0.2 m/s). null or absent: as published.
+   */
+  calibration?: AppliedCalibration | null
 }
 
 /** One field's problem, for an API route's 400 answer. */
@@ -263,7 +276,7 @@ function prepare(input: FilmInputs): Prepared {
 }
 
 /** One run of the film physics for prepared inputs, with optional perturbations. */
-function climb(p: Prepared, o: { viscosityFactor?: number, humidityPct?: number, wallAngleDeg?: number, airSpeed_m_s?: number, exchangeFactor?: number, factors?: FilmFactors, noSugarViscosity?: boolean } = {}): FilmClimb {
+function climb(p: Prepared, o: { viscosityFactor?: number, humidityPct?: number, wallAngleDeg?: number, airSpeed_m_s?: number, exchangeFactor?: number, massTransferFactor?: number, factors?: FilmFactors, noSugarViscosity?: boolean } = {}): FilmClimb {
   const eta = p.etaSolvent * (o.noSugarViscosity ? 1 : p.sugarFactor) * (o.viscosityFactor ?? 1)
   return filmClimb({
     x1: p.c.solventMoleFraction,
@@ -277,6 +290,7 @@ function climb(p: Prepared, o: { viscosityFactor?: number, humidityPct?: number,
     bowlDiameterMm: p.i.bowlDiameterMm,
     motion: { airSpeed_m_s: o.airSpeed_m_s ?? DEFAULT_AIR_SPEED_M_S, wallHeight_m: DEFAULT_WETTED_WALL_M },
     exchangeFraction: FILM_EXCHANGE_FRACTION * (o.exchangeFactor ?? 1),
+    massTransferFactor: o.massTransferFactor,
     factors: o.factors,
   })
 }
@@ -307,8 +321,31 @@ function tearsRun(kind: DrinkKind, r: FilmClimb): boolean {
   return r.marangoniStress_Pa > 0 && suppression(kind, r.solutalDeltaSigma_mN_m + r.thermalDeltaSigma_mN_m, true) === null
 }
 
+/**
+ * The two calibrated multipliers of one draw. Published: the exchanged fraction ×/÷ 2 and the
+ * room's draughts 0.05–0.2 m/s, both log-uniform (RANGE_SPREADS). Calibrated: ln f and ln k from
+ * the posterior's normals (mean ln parameters, sdLn, correlation), draughts held at the default —
+ * the calibrated k already stands for the room's real air, draughts included.
+ */
+function calibratedDraw(random: () => number, calibration: AppliedCalibration | null): { airSpeed_m_s: number, exchangeFactor: number, massTransferFactor?: number } {
+  const s = RANGE_SPREADS
+  if (!calibration) {
+    const airSpeed_m_s = logUniformDraw(random, s.airSpeed_m_s[0], s.airSpeed_m_s[1])
+    return { airSpeed_m_s, exchangeFactor: logUniformDraw(random, s.exchangeFactor[0], s.exchangeFactor[1]) }
+  }
+  const z1 = normalDraw(random)
+  const z2 = normalDraw(random)
+  const rho = Math.min(0.99, Math.max(-0.99, calibration.correlation ?? 0))
+  const { parameters: m, sdLn } = calibration
+  return {
+    airSpeed_m_s: DEFAULT_AIR_SPEED_M_S,
+    exchangeFactor: m.exchangeFactor * Math.exp(sdLn.exchangeFactor * z1),
+    massTransferFactor: m.massTransferFactor * Math.exp(sdLn.massTransferFactor * (rho * z1 + Math.sqrt(1 - rho * rho) * z2)),
+  }
+}
+
 /** The ranges: RANGE_DRAWS runs with the spreads of RANGE_SPREADS, seeded from the inputs. */
-function predictionRanges(p: Prepared): TearPrediction['ranges'] {
+function predictionRanges(p: Prepared, calibration: AppliedCalibration | null): TearPrediction['ranges'] {
   const random = seededRandom(seedOf(JSON.stringify(p.i)))
   const s = RANGE_SPREADS
   const band: number[] = []
@@ -326,8 +363,7 @@ function predictionRanges(p: Prepared): TearPrediction['ranges'] {
         sigmaSlope: Math.max(0.5, 1 + s.sigmaSlopeSigma * normalDraw(random)),
         glassConductance: logUniformDraw(random, s.conductanceFactor[0], s.conductanceFactor[1]),
       },
-      airSpeed_m_s: logUniformDraw(random, s.airSpeed_m_s[0], s.airSpeed_m_s[1]),
-      exchangeFactor: logUniformDraw(random, s.exchangeFactor[0], s.exchangeFactor[1]),
+      ...calibratedDraw(random, calibration),
       viscosityFactor: Math.max(0.5, 1 + s.viscositySigma * normalDraw(random)),
       humidityPct: Math.min(100, Math.max(0, p.i.room.relativeHumidityPct + s.humiditySigmaPct * normalDraw(random))),
       wallAngleDeg: Math.min(WALL_ANGLE_RANGE_DEG.max, Math.max(WALL_ANGLE_RANGE_DEG.min, p.i.wallAngleDeg + s.wallAngleSigmaDeg * normalDraw(random))),
@@ -369,14 +405,17 @@ function alcoholLossPer10Min(p: Prepared, ethanolFlux_kg_m2_s: number): number {
  * activityIndex, viscosity, uncertainty). Throws RangeError for inputs outside their ranges.
  * Never returns NaN.
  */
-export function computeFilm(input: FilmInputs): FilmResult {
+export function computeFilm(input: FilmInputs, options: FilmOptions = {}): FilmResult {
   const p = prepare(input)
   const { i, c } = p
+  const calibration = options.calibration ?? null
+  if (calibration) assertCalibration(calibration)
   const x1 = c.solventMoleFraction
   const T_K = i.tempC + KELVIN_AT_0C
   const gam = activityCoefficientsGlass(x1, T_K)
-  const r = climb(p)
-  const bare = p.sugarFactor > 1 ? climb(p, { noSugarViscosity: true }) : r
+  const params = calibration ? calibration.parameters : undefined
+  const r = climb(p, { ...params })
+  const bare = p.sugarFactor > 1 ? climb(p, { ...params, noSugarViscosity: true }) : r
   const azeo = isothermalAzeotropeMoleFraction(T_K, 'glass')
   const azeoAbv = azeo === null ? null : abvFromMassFraction(massFractionFromMoleFraction(azeo))
   const rise = r.solutalDeltaSigma_mN_m + r.thermalDeltaSigma_mN_m
@@ -441,9 +480,47 @@ export function computeFilm(input: FilmInputs): FilmResult {
       tearsAround: tearsExpected ? r.tearsAround : null,
       swirlShow_s: tearsExpected ? r.swirlShow_s : null,
       alcoholLossPer10Min_pct: alcoholLossPer10Min(p, ex.ethanolFlux_kg_m2_s),
-      ranges: predictionRanges(p),
+      ranges: predictionRanges(p, calibration),
     },
     tearFallSpeedUnsweetened_mm_s: tearsExpected && tearsRun(i.kind, bare) ? bare.tearFallSpeed_mm_s : null,
+    calibration,
+  }
+}
+
+/** A calibration's multipliers must be positive and finite, its spreads finite and ≥ 0. */
+function assertCalibration(c: AppliedCalibration): void {
+  assertInRange('calibration.parameters.exchangeFactor', c.parameters.exchangeFactor, 1e-3, 1e3, '×')
+  assertInRange('calibration.parameters.massTransferFactor', c.parameters.massTransferFactor, 1e-3, 1e3, '×')
+  assertInRange('calibration.sdLn.exchangeFactor', c.sdLn.exchangeFactor, 0, 5, '')
+  assertInRange('calibration.sdLn.massTransferFactor', c.sdLn.massTransferFactor, 0, 5, '')
+  if (c.correlation !== undefined) assertInRange('calibration.correlation', c.correlation, -1, 1, '')
+}
+
+/** What the calibration compares with one observation: the central model at given parameters. */
+export interface CalibrationRun {
+  /** Clear band, mm (0 when no film climbs). */
+  clearBandHeight_mm: number
+  /** Below this band the guest sees no distinct band (one capillary length), mm. */
+  visibleBandMin_mm: number
+  /** Tear fall speed, mm/s (null when no tears run). */
+  tearFallSpeed_mm_s: number | null
+  /** Whether tears run (a film climbs and nothing holds the surface). */
+  tearsExpected: boolean
+  /** Share of the pour's alcohol lost in 10 minutes, %. */
+  alcoholLossPer10Min_pct: number
+}
+
+/** The central film of a pour at the given multipliers, for the calibration's predictions (calibration.ts). */
+export function calibrationRun(input: FilmInputs, parameters: ModelParameters): CalibrationRun {
+  const p = prepare(input)
+  const r = climb(p, { exchangeFactor: parameters.exchangeFactor, massTransferFactor: parameters.massTransferFactor })
+  const tears = tearsRun(p.i.kind, r)
+  return {
+    clearBandHeight_mm: r.clearBandHeight_mm,
+    visibleBandMin_mm: r.capillaryLength_mm,
+    tearFallSpeed_mm_s: tears ? r.tearFallSpeed_mm_s : null,
+    tearsExpected: tears,
+    alcoholLossPer10Min_pct: alcoholLossPer10Min(p, r.exchange.ethanolFlux_kg_m2_s),
   }
 }
 
@@ -507,9 +584,9 @@ export function computeCurve(input: CurveInputs): CurvePoint[] {
   return out
 }
 
-/** The central film physics of a pour without ranges (for comparisons in the guest texts). */
-export function centralClimb(input: FilmInputs): FilmClimb {
-  return climb(prepare(input))
+/** The central film physics of a pour without ranges (for comparisons in the guest texts), at the published or given multipliers. */
+export function centralClimb(input: FilmInputs, parameters?: ModelParameters): FilmClimb {
+  return climb(prepare(input), { ...parameters })
 }
 
 /**

@@ -83,7 +83,7 @@ function limitsSentence(r: FilmResult, unit: 'C' | 'F'): string {
 function tableWineComparison(r: FilmResult, brief: boolean): string | null {
   const p = r.predictions
   if (r.inputs.abvPctVol < COMPARE_FROM_ABV_PCT_VOL || !p.tearsExpected || p.tearFallSpeed_mm_s === null) return null
-  const wine = centralClimb({ ...r.inputs, abvPctVol: TABLE_WINE_ABV_PCT_VOL, sugarGL: 0, kind: 'still' })
+  const wine = centralClimb({ ...r.inputs, abvPctVol: TABLE_WINE_ABV_PCT_VOL, sugarGL: 0, kind: 'still' }, r.calibration?.parameters)
   if (!(wine.marangoniStress_Pa > 0) || wine.tearFallSpeed_mm_s === null) return null
   const word = (ratio: number, more: string, less: string, same: string): string =>
     Math.abs(ratio - 1) <= SIMILAR_WITHIN ? same : ratio > 1 ? more : less
