@@ -120,6 +120,14 @@ export const CALIBRATION_PRIOR_SD_LN = { exchangeFactor: Math.log(2), massTransf
 export const BAND_READING_SD_MM = 2
 
 /**
+ * Band readings are Student-t with ν = 4 around the model (a robust likelihood, BDA3 §17.2 — from
+ * memory): one device's misreading of 60 mm for a 10 mm band weighs like a few normal residuals, not like
+ * hundreds, so it neither drags the multipliers nor, alone, fails the fit check.
+ */
+const BAND_T_NU = 4
+const BAND_T_HALF_NU1 = (BAND_T_NU + 1) / 2
+
+/**
  * Prior on the band's relative scatter s (between glasses, moments and observers): scaled-inverse-χ²
  * on s² with ν0 = 4 pseudo-observations at s0 = 0.25 (estimate; BDA3 ch. 3, from memory).
  */
@@ -474,7 +482,7 @@ function negLogPosterior(data: Datum[], m0: [number, number], P0inv: [[number, n
         const H = Math.exp(lnH[i]! + gH0[i]! * da + gH1[i]! * db)
         const v2 = r2 + s2 * H * H
         const sd = Math.sqrt(v2)
-        if (k === 1) nll += 0.5 * Math.log(v2) + ((y[i]! - H) ** 2) / (2 * v2)
+        if (k === 1) nll += 0.5 * Math.log(v2) + BAND_T_HALF_NU1 * Math.log(1 + ((y[i]! - H) ** 2) / (BAND_T_NU * v2))
         else if (k === 2) nll -= logPhi((vis[i]! - H) / sd)
         else nll -= logPhi((H - BAND_READING_MAX_MM) / sd)
       }
@@ -630,6 +638,32 @@ function fitGlass(votes: Vote[], cache: ModelCache, P0: [[number, number], [numb
 }
 
 /**
+ * A room's posterior: from its votes' linearisation at the glass's mode, relinearised exactly (every
+ * condition's own run) at the room's mode until it stays in one THETA_GRID cell (at most 4 passes).
+ */
+function fitRoom(data0: Datum[], cache: ModelCache, m0: [number, number], P0: [[number, number], [number, number]], x0: number[]): Fitted {
+  let data = data0
+  let x = x0
+  let fitted: Fitted | null = null
+  for (let pass = 0; pass < 4; pass++) {
+    const r = posteriorOf(data, m0, P0, x)
+    fitted = { post: r.post, data, x: r.x }
+    x = r.x
+    const cell = (t: number): number => Math.round(t / THETA_GRID)
+    const lin = data[0]!.lin.theta0
+    if (cell(x[0]!) === cell(lin[0]) && cell(x[1]!) === cell(lin[1])) break
+    const next: Datum[] = []
+    for (const d of data) {
+      const l = cache.linear(d.v, [x[0]!, x[1]!], true)
+      if (l) next.push({ v: d.v, lin: l })
+    }
+    if (!next.length) break
+    data = next
+  }
+  return fitted!
+}
+
+/**
  * Posterior predictive check of the speed judgements (BDA3 §6.3, from memory): their summed log
  * probability under the fitted model against its expectation and variance if the model were right.
  */
@@ -710,8 +744,7 @@ export function calibrate(observations: FitObservation[], options: CalibrateOpti
     const glass = fitGlass(votes, cache, P0)
     groups.push(groupResult(glassKey, null, votes, glass, o, priorSd))
     if (!glass) continue
-    // The room level works on the glass's linearisation at its mode: a room's deviation of a few
-    // tenths in ln moves the linearised values by well under 1 % (the model is close to a power law in f and k).
+    // The room level starts from the glass's linearisation at its mode and relinearises at the room's own.
     const byRoom = new Map<string, Datum[]>()
     for (const d of glass.data) byRoom.set(d.v.roomKey, [...(byRoom.get(d.v.roomKey) ?? []), d])
     for (const [roomKey, mine] of [...byRoom].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
@@ -722,9 +755,9 @@ export function calibrate(observations: FitObservation[], options: CalibrateOpti
       const t2 = o.roomSdLn ** 2
       const c0 = rest.cov
       const roomPrior: [[number, number], [number, number]] = [[c0[0][0] + t2, c0[0][1]], [c0[1][0], c0[1][1] + t2]]
-      const r = posteriorOf(mine, rest.mean, roomPrior, [rest.mean[0], rest.mean[1], glass.x[2]!])
+      const r = fitRoom(mine, cache, rest.mean, roomPrior, [rest.mean[0], rest.mean[1], glass.x[2]!])
       const roomVotes = votes.filter(v => v.roomKey === roomKey)
-      groups.push(groupResult(glassKey, roomKey, roomVotes, { post: r.post, data: mine, x: r.x }, o, [Math.sqrt(roomPrior[0][0]), Math.sqrt(roomPrior[1][1])]))
+      groups.push(groupResult(glassKey, roomKey, roomVotes, r, o, [Math.sqrt(roomPrior[0][0]), Math.sqrt(roomPrior[1][1])]))
     }
   }
   return { groups }

@@ -9,7 +9,11 @@ import {
   computeFilm,
   modelAzeotropeAt1atm,
   validateFilmInputs,
+  centralClimb,
+  describePour,
+  wallTransfer,
 } from '../../../shared/science'
+import type { AppliedCalibration } from '../../../shared/science/calibration'
 
 /** Every number in a result, recursively, with its path. */
 function numbers(value: unknown, path = ''): [string, number][] {
@@ -154,5 +158,80 @@ describe('model azeotrope', () => {
     expect(Math.abs(a.massFraction - 0.956)).toBeLessThan(0.01) // Perry's Chemical Engineers' Handbook, 1 atm VLE table: 95.6 % mass (from memory)
     expect(a.abvPctVol).toBeGreaterThan(96)
     expect(a.abvPctVol).toBeLessThan(98)
+  })
+})
+
+describe('the calibrated parameters: exchanged fraction and mass transfer', () => {
+  const motion = { airSpeed_m_s: 0.1, wallHeight_m: 0.04 }
+  const air = { surfaceT_K: 289, airT_K: 294, surfaceYEthanol: 0.004, surfaceYWater: 0.017, roomYWater: 0.0123, motion }
+
+  it('multiplies both vapours\' coefficients and the air\'s heat-transfer coefficient by the one factor', () => {
+    const one = wallTransfer(air)
+    const scaled = wallTransfer({ ...air, transferFactor: 0.7 })
+    expect(scaled.kEthanol_m_s / one.kEthanol_m_s).toBeCloseTo(0.7, 12)
+    expect(scaled.kWater_m_s / one.kWater_m_s).toBeCloseTo(0.7, 12)
+    expect(scaled.hAir_W_m2_K / one.hAir_W_m2_K).toBeCloseTo(0.7, 12)
+    expect(wallTransfer({ ...air, transferFactor: 1 })).toEqual(one)
+  })
+
+  it('leaves every output as it was without a calibration, and says none was used', () => {
+    for (const input of [{ abvPctVol: 12, tempC: 16, sugarGL: 3 }, { abvPctVol: 40, tempC: 18, sugarGL: 0, kind: 'spirit' as const }, { abvPctVol: 19.5, tempC: 14, sugarGL: 95, kind: 'fortified' as const }]) {
+      const plain = computeFilm(input)
+      expect(plain.calibration).toBeNull()
+      expect(computeFilm(input, { calibration: null })).toEqual(plain)
+      expect(computeFilm(input, {})).toEqual(plain)
+      expect(centralClimb(input, { exchangeFactor: 1, massTransferFactor: 1 })).toEqual(centralClimb(input))
+    }
+  })
+
+  it('identifies f by the band and k by the tears\' speed: H ∝ f^≈1 k^≈−¼, U ∝ k^≈½ and barely f (the lubrication closure, docs/science.md §6)', () => {
+    const d = 0.05
+    const rows: string[] = []
+    for (const input of [{ abvPctVol: 12, tempC: 20, sugarGL: 0 }, { abvPctVol: 40, tempC: 20, sugarGL: 0, kind: 'spirit' as const }]) {
+      const at = (a: number, b: number) => centralClimb(input, { exchangeFactor: Math.exp(a), massTransferFactor: Math.exp(b) })
+      const slope = (q: (r: ReturnType<typeof at>) => number, which: 'f' | 'k'): number => {
+        const [p, m] = which === 'f' ? [at(d, 0), at(-d, 0)] : [at(0, d), at(0, -d)]
+        return (Math.log(q(p)) - Math.log(q(m))) / (2 * d)
+      }
+      const H = (r: ReturnType<typeof at>) => r.clearBandHeight_mm
+      const U = (r: ReturnType<typeof at>) => r.tearFallSpeed_mm_s!
+      const s = { Hf: slope(H, 'f'), Hk: slope(H, 'k'), Uf: slope(U, 'f'), Uk: slope(U, 'k') }
+      rows.push(`${input.abvPctVol} % vol: d ln H/d ln f ${s.Hf.toFixed(3)}, d ln H/d ln k ${s.Hk.toFixed(3)}, d ln U/d ln f ${s.Uf.toFixed(3)}, d ln U/d ln k ${s.Uk.toFixed(3)}`)
+      // the closure: H = Δσ/τ with Δσ ∝ f and τ ∝ (J/f · Δσ)^¼ ∝ J^¼, so H ∝ f J^−¼; U ∝ τ² ∝ J^½ (J ∝ k)
+      expect(s.Hf).toBeGreaterThan(0.95)
+      expect(s.Hf).toBeLessThan(1.15)
+      expect(s.Hk).toBeGreaterThan(-0.3)
+      expect(s.Hk).toBeLessThan(-0.1)
+      expect(Math.abs(s.Uf)).toBeLessThan(0.1)
+      expect(s.Uk).toBeGreaterThan(0.45)
+      expect(s.Uk).toBeLessThan(0.6)
+    }
+    console.log(`sensitivities at 20 °C, default room and glass:\n  ${rows.join('\n  ')}`)
+  })
+
+  it('runs its central value with a calibration\'s parameters and draws its ranges from the posterior', () => {
+    const input = { abvPctVol: 12.5, tempC: 16, sugarGL: 3 }
+    const calibration: AppliedCalibration = { parameters: { exchangeFactor: 1.6, massTransferFactor: 0.7 }, sdLn: { exchangeFactor: 0.05, massTransferFactor: 0.08 }, correlation: 0.6, observations: 120 }
+    const plain = computeFilm(input)
+    const cal = computeFilm(input, { calibration })
+    expect(cal.calibration).toEqual(calibration)
+    expect(cal.predictions.clearBandHeight_mm).toBeCloseTo(centralClimb(input, calibration.parameters).clearBandHeight_mm, 12)
+    expect(cal.predictions.clearBandHeight_mm / plain.predictions.clearBandHeight_mm).toBeGreaterThan(1.6) // ≈ 1.6^1.07 · 0.7^−0.2
+    expect(cal.massTransferEthanol_m_s / plain.massTransferEthanol_m_s).toBeGreaterThan(0.65)
+    expect(cal.massTransferEthanol_m_s / plain.massTransferEthanol_m_s).toBeLessThan(0.75)
+    const width = (r: { low: number, high: number } | null): number => r!.high / r!.low
+    // the posterior (×/÷ 1.05 on f) is far tighter than the published ×/÷ 2: the band's range narrows
+    expect(width(cal.predictions.ranges.clearBandHeight_mm)).toBeLessThan(width(plain.predictions.ranges.clearBandHeight_mm))
+    const band = cal.predictions.ranges.clearBandHeight_mm!
+    expect(band.low).toBeLessThan(cal.predictions.clearBandHeight_mm)
+    expect(band.high).toBeGreaterThan(cal.predictions.clearBandHeight_mm)
+    expect(describePour(cal).length).toBeGreaterThan(0)
+    for (const [path, v] of numbers(cal)) expect(Number.isFinite(v), path).toBe(true)
+  })
+
+  it('refuses a calibration with a multiplier that is not positive and finite', () => {
+    const bad = (exchangeFactor: number): AppliedCalibration => ({ parameters: { exchangeFactor, massTransferFactor: 1 }, sdLn: { exchangeFactor: 0.1, massTransferFactor: 0.1 }, observations: 20 })
+    expect(() => computeFilm({ abvPctVol: 12, tempC: 16, sugarGL: 0 }, { calibration: bad(0) })).toThrow(RangeError)
+    expect(() => computeFilm({ abvPctVol: 12, tempC: 16, sugarGL: 0 }, { calibration: bad(Number.NaN) })).toThrow(RangeError)
   })
 })
