@@ -117,7 +117,7 @@ export const CALIBRATION_PRIOR_SD_LN = { exchangeFactor: Math.log(2), massTransf
  * A band reading's error, mm, 1σ: an eye reading a printed millimetre scale held against a curved
  * glass, the band's top a soft edge (estimate, no source). The scatter beyond it is estimated.
  */
-export const BAND_READING_SD_MM = 2
+const BAND_READING_SD_MM = 2
 
 /**
  * Band readings are Student-t with ν = 4 around the model (a robust likelihood, BDA3 §17.2 — from
@@ -138,24 +138,24 @@ const SCATTER_PRIOR = { nu0: 4, s0: 0.25 } as const
  * centimetre by eye (estimate, no source), and a lapse share: a guest taps a bin at random this often
  * (estimate; keeps one stray tap from ruling the fit).
  */
-export const SPEED_JUDGEMENT_SD_LN = 0.3
+const SPEED_JUDGEMENT_SD_LN = 0.3
 const SPEED_LAPSE = 0.05
 
-/**
- * 'applied' needs both posterior sdLn ≤ this (the 80 % interval inside ×/÷ 1.38, against the
- * published ×/÷ 2 on f), at least CALIBRATION_MIN_VOTES votes and the fit check passed.
- */
-export const CALIBRATION_APPLY_SD_LN = 0.25
-/** Votes (one device at one pour) below which a group stays 'too_few' whatever its sdLn: the scatter's scale then rests on its prior. */
-export const CALIBRATION_MIN_VOTES = 12
-/** The fit check: the band's relative scatter beyond reading error above this fails (±40 % at 1σ). */
-export const CALIBRATION_MAX_BAND_SCATTER = 0.4
-/** The fit check: speed judgements' log score more than this many sd below its expectation fails. */
-const SPEED_SCORE_MIN_Z = -3
-/** A room's own group is reported once it has this many votes for the glass. */
-export const CALIBRATION_MIN_ROOM_VOTES = 12
-/** The hierarchical room level: sd of a room's deviation of each ln multiplier from its glass (draughts, observers; estimate). */
-export const CALIBRATION_ROOM_SD_LN = 0.2
+/** What decides a group's status and its room level (docs/science.md, "Calibration from observations"). */
+export const CALIBRATION_THRESHOLDS = {
+  /** 'applied' needs both posterior sdLn ≤ this: the 80 % interval inside ×/÷ 1.38, against the published ×/÷ 2 on f. */
+  applySdLn: 0.25,
+  /** Votes (one device at one pour) below which a group stays 'too_few' whatever its sdLn: the scatter's scale then rests on its prior. */
+  minVotes: 12,
+  /** The fit check: the band's relative scatter beyond reading error above this fails (±40 % at 1σ). */
+  maxBandScatter: 0.4,
+  /** The fit check: the speed judgements' log score more than this many sd below its expectation fails. */
+  minSpeedScoreZ: -3,
+  /** A room's own group is reported once it has this many votes for the glass (and the glass has another room). */
+  minRoomVotes: 12,
+  /** The hierarchical room level: sd of a room's deviation of each ln multiplier from its glass (draughts, observers; estimate). */
+  roomSdLn: 0.2,
+} as const
 
 /** Options of calibrate; every field defaults to the documented constant above. */
 export interface CalibrateOptions {
@@ -698,7 +698,7 @@ function groupResult(glassKey: string, roomKey: string | null, votes: Vote[], fi
   const scatter = fitted?.post.scatter ?? null
   const speedZ = fitted?.post.speedScoreZ ?? null
   const enough = used.length >= o.minVotes
-  const fits = (scatter === null || scatter <= CALIBRATION_MAX_BAND_SCATTER) && (speedZ === null || speedZ >= SPEED_SCORE_MIN_Z)
+  const fits = (scatter === null || scatter <= CALIBRATION_THRESHOLDS.maxBandScatter) && (speedZ === null || speedZ >= CALIBRATION_THRESHOLDS.minSpeedScoreZ)
   const status: GroupCalibration['status'] = enough && !fits ? 'does_not_fit' : enough && sa <= o.applySdLn && sb <= o.applySdLn ? 'applied' : 'too_few'
   const interval = (m: number, s: number): [number, number] => [Math.exp(m - Z80 * s), Math.exp(m + Z80 * s)]
   return {
@@ -716,18 +716,18 @@ function groupResult(glassKey: string, roomKey: string | null, votes: Vote[], fi
 }
 
 /**
- * Fits every glass, and every glass in a room once that room has CALIBRATION_MIN_ROOM_VOTES votes,
+ * Fits every glass, and every glass in a room once that room has CALIBRATION_THRESHOLDS.minRoomVotes votes,
  * from the observations. A room's prior is its glass's posterior from the other rooms (leave that
- * room out, so its votes are not counted twice) widened by CALIBRATION_ROOM_SD_LN: partial pooling,
+ * room out, so its votes are not counted twice) widened by CALIBRATION_THRESHOLDS.roomSdLn: partial pooling,
  * a room's deviation shrunk toward its glass (BDA3 ch. 5, from memory).
  */
 export function calibrate(observations: FitObservation[], options: CalibrateOptions = {}): CalibrationResult {
   const o: Required<CalibrateOptions> = {
     priorSdLn: options.priorSdLn ?? CALIBRATION_PRIOR_SD_LN,
-    applySdLn: options.applySdLn ?? CALIBRATION_APPLY_SD_LN,
-    minVotes: options.minVotes ?? CALIBRATION_MIN_VOTES,
-    minRoomVotes: options.minRoomVotes ?? CALIBRATION_MIN_ROOM_VOTES,
-    roomSdLn: options.roomSdLn ?? CALIBRATION_ROOM_SD_LN,
+    applySdLn: options.applySdLn ?? CALIBRATION_THRESHOLDS.applySdLn,
+    minVotes: options.minVotes ?? CALIBRATION_THRESHOLDS.minVotes,
+    minRoomVotes: options.minRoomVotes ?? CALIBRATION_THRESHOLDS.minRoomVotes,
+    roomSdLn: options.roomSdLn ?? CALIBRATION_THRESHOLDS.roomSdLn,
   }
   const priorSd: [number, number] = [o.priorSdLn.exchangeFactor, o.priorSdLn.massTransferFactor]
   const P0: [[number, number], [number, number]] = [[priorSd[0] ** 2, 0], [0, priorSd[1] ** 2]]

@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest'
 import {
-  CALIBRATION_MIN_VOTES, CALIBRATION_PRIOR_SD_LN, PUBLISHED_PARAMETERS, appliedCalibration, calibrate,
+  CALIBRATION_PRIOR_SD_LN, CALIBRATION_THRESHOLDS, PUBLISHED_PARAMETERS, appliedCalibration, calibrate,
   type FitObservation, type GroupCalibration,
 } from '../../../shared/science/calibration'
 import { seededRandom } from '../../../shared/science/uncertainty'
@@ -82,7 +82,7 @@ describe('calibrate: recovering known multipliers from the model\'s own observat
       glassKey: 'glass-r', truth: { exchangeFactor: 1.2, massTransferFactor: 1 }, n: 400, seed: 2026,
       rooms: ['room-a', 'room-b'], roomTransfer: { 'room-b': 0.6 },
     })
-    const few = syntheticObservations({ glassKey: 'glass-r', truth: { exchangeFactor: 1.2, massTransferFactor: 1 }, n: CALIBRATION_MIN_VOTES - 2, seed: 99, rooms: ['room-c'] })
+    const few = syntheticObservations({ glassKey: 'glass-r', truth: { exchangeFactor: 1.2, massTransferFactor: 1 }, n: CALIBRATION_THRESHOLDS.minRoomVotes - 2, seed: 99, rooms: ['room-c'] })
       .map(o => ({ ...o, deviceKey: `c-${o.deviceKey}` }))
     const { groups } = calibrate([...obs, ...few])
     console.log(`per-room level (seed 2026, 400 votes over two rooms):\n${groups.map(g => `  ${describeGroup(g)}`).join('\n')}`)
@@ -110,7 +110,10 @@ describe('calibrate: what must not move it', () => {
       expect(inside(1, g.intervals.massTransferFactor)).toBe(true)
     }
     expect(small.status).toBe('too_few')
+    expect(small.observations).toBeLessThan(CALIBRATION_THRESHOLDS.minVotes)
     expect(large.status).toBe('applied')
+    expect(large.sdLn.exchangeFactor).toBeLessThanOrEqual(CALIBRATION_THRESHOLDS.applySdLn)
+    expect(large.sdLn.massTransferFactor).toBeLessThanOrEqual(CALIBRATION_THRESHOLDS.applySdLn)
     expect(large.intervals.exchangeFactor[0]).toBeGreaterThan(0.9)
     expect(large.intervals.exchangeFactor[1]).toBeLessThan(1.1)
     expect(large.intervals.massTransferFactor[0]).toBeGreaterThan(0.8)
