@@ -102,6 +102,8 @@ export interface GroupCalibration {
 
 export interface CalibrationResult {
   groups: GroupCalibration[]
+  /** How many runs of the glass model the fit took (memoised per pour, room reading and parameter point). */
+  modelRuns: number
 }
 
 /**
@@ -245,7 +247,18 @@ const DIFF_STEP = 0.05
 /** The ABV step of the secant that carries a pour's loss of alcohol into its band and speed, % vol. */
 const ABV_SECANT_PCT_VOL = 1
 /** Linearisation points are rounded to this (ln units) so that groups share the pour's runs. */
-const THETA_GRID = 0.02
+const THETA_GRID = 0.01
+/** The model is relinearised until the mode lies within this of the linearisation point (ln units). */
+const RELINEARISE_LN = 0.02
+
+/** Whether the mode x lies within RELINEARISE_LN of the linearisation point θL in both ln multipliers. */
+const near = (x: number[], thetaL: [number, number], within = RELINEARISE_LN): boolean => Math.abs(x[0]! - thetaL[0]) < within && Math.abs(x[1]! - thetaL[1]) < within
+/**
+ * A room starts from its glass's linearisation (exact at the glass's mode) and is relinearised only
+ * when its mode lies further than this from it: within 0.1 in ln the model's values move by the
+ * shared gradient to better than 1 % (docs/science.md §16).
+ */
+const ROOM_RELINEARISE_LN = 0.1
 
 type Run = ReturnType<typeof calibrationRun>
 type RunInputs = Parameters<typeof calibrationRun>[0]
@@ -428,7 +441,7 @@ const SPEED_LOG_BOUNDS = SPEED_ORDER.map((bin) => {
 })
 
 /** Negative log posterior of (ln f, ln k, ln s) for linearised data and a Gaussian prior (mean m0, inverse covariance P0inv). */
-function negLogPosterior(data: Datum[], m0: [number, number], P0inv: [[number, number], [number, number]]): (x: number[]) => number {
+function negLogPosterior(data: Datum[], m0: [number, number], P0inv: [[number, number], [number, number]]): Objective {
   const { nu0, s0 } = SCATTER_PRIOR
   const n = data.length
   // flattened once: 0 no band, 1 a reading, 2 no clear band (below the visible band), 3 at the scale's end (at least that)
@@ -468,12 +481,18 @@ function negLogPosterior(data: Datum[], m0: [number, number], P0inv: [[number, n
   const hasBand = kind.some(k => k > 0)
   const r2 = BAND_READING_SD_MM * BAND_READING_SD_MM
   const sU = SPEED_JUDGEMENT_SD_LN
-  return (x: number[]) => {
+  const nu = BAND_T_NU
+  const c = BAND_T_HALF_NU1
+  /** The value and its gradient in (ln f, ln k, ln s). */
+  return (x: number[]): [number, number, number, number] => {
     const a = x[0]!
     const b = x[1]!
     const t = x[2]!
     const s2 = Math.exp(2 * t)
     let nll = 0
+    let ga = 0
+    let gb = 0
+    let gt = 0
     for (let i = 0; i < n; i++) {
       const da = a - ta[i]!
       const db = b - tb[i]!
@@ -481,49 +500,80 @@ function negLogPosterior(data: Datum[], m0: [number, number], P0inv: [[number, n
       if (k > 0) {
         const H = Math.exp(lnH[i]! + gH0[i]! * da + gH1[i]! * db)
         const v2 = r2 + s2 * H * H
-        const sd = Math.sqrt(v2)
-        if (k === 1) nll += 0.5 * Math.log(v2) + BAND_T_HALF_NU1 * Math.log(1 + ((y[i]! - H) ** 2) / (BAND_T_NU * v2))
-        else if (k === 2) nll -= logPhi((vis[i]! - H) / sd)
-        else nll -= logPhi((H - BAND_READING_MAX_MM) / sd)
+        let dH = 0 // ∂nll/∂H
+        let dv2 = 0 // ∂nll/∂v2
+        if (k === 1) {
+          const e = y[i]! - H
+          const q = 1 + (e * e) / (nu * v2)
+          nll += 0.5 * Math.log(v2) + c * Math.log(q)
+          dH = (c * (-2 * e)) / (nu * v2 * q)
+          dv2 = 0.5 / v2 - (c * e * e) / (nu * v2 * v2 * q)
+        }
+        else {
+          const sd = Math.sqrt(v2)
+          // no clear band: ln Φ((ℓc − H)/sd); at the scale's end: ln Φ((H − 80)/sd)
+          const sign = k === 2 ? -1 : 1
+          const num = k === 2 ? vis[i]! - H : H - BAND_READING_MAX_MM
+          const z = num / sd
+          nll -= logPhi(z)
+          const m = millsRatio(z) // d ln Φ/dz
+          dH = -m * (sign / sd)
+          dv2 = -m * (-0.5 * z / v2)
+        }
+        const dHtot = dH + dv2 * 2 * s2 * H // v2 depends on H too
+        ga += dHtot * H * gH0[i]!
+        gb += dHtot * H * gH1[i]!
+        gt += dv2 * 2 * s2 * H * H
       }
       if (hasU[i]) {
         const u = lnU[i]! + gU0[i]! * da + gU1[i]! * db
-        const pHi = hi[i]! === Number.POSITIVE_INFINITY ? 1 : phi((hi[i]! - u) / sU)
-        const pLo = lo[i]! === Number.NEGATIVE_INFINITY ? 0 : phi((lo[i]! - u) / sU)
-        nll -= Math.log((1 - SPEED_LAPSE) * Math.max(0, pHi - pLo) + SPEED_LAPSE / 3)
+        const zh = (hi[i]! - u) / sU
+        const zl = (lo[i]! - u) / sU
+        const pHi = hi[i]! === Number.POSITIVE_INFINITY ? 1 : phi(zh)
+        const pLo = lo[i]! === Number.NEGATIVE_INFINITY ? 0 : phi(zl)
+        const P = (1 - SPEED_LAPSE) * Math.max(0, pHi - pLo) + SPEED_LAPSE / 3
+        nll -= Math.log(P)
+        const dHi = hi[i]! === Number.POSITIVE_INFINITY ? 0 : -normalDensity(zh) / sU
+        const dLo = lo[i]! === Number.NEGATIVE_INFINITY ? 0 : -normalDensity(zl) / sU
+        const du = pHi - pLo > 0 ? (-(1 - SPEED_LAPSE) * (dHi - dLo)) / P : 0
+        ga += du * gU0[i]!
+        gb += du * gU1[i]!
       }
     }
     const d0 = a - m0[0]
     const d1 = b - m0[1]
     const prior = 0.5 * (P0inv[0][0] * d0 * d0 + 2 * P0inv[0][1] * d0 * d1 + P0inv[1][1] * d1 * d1)
+    ga += P0inv[0][0] * d0 + P0inv[0][1] * d1
+    gb += P0inv[0][1] * d0 + P0inv[1][1] * d1
     // scaled-inverse-χ²(ν0, s0²) on s², written for t = ln s (Jacobian included): ν0 t + ν0 s0²/(2 s²)
     const scale = hasBand ? nu0 * t + (nu0 * s0 * s0) / (2 * s2) : 0.5 * (t - Math.log(s0)) ** 2
-    return nll + prior + scale
+    gt += hasBand ? nu0 - (nu0 * s0 * s0) / s2 : t - Math.log(s0)
+    return [nll + prior + scale, ga, gb, gt]
   }
 }
 
-/** Finite-difference gradient and Hessian of f at x (central differences). */
-function derivatives(f: (x: number[]) => number, x: number[], h = 1e-4): { g: number[], H: number[][], f0: number } {
+const normalDensity = (z: number): number => Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI)
+
+/** d ln Φ(z)/dz = φ(z)/Φ(z), kept finite far in the lower tail (asymptotic −z − 1/z below −8). */
+function millsRatio(z: number): number {
+  if (z > -8) return normalDensity(z) / Math.max(1e-300, phi(z))
+  return -z - 1 / z
+}
+
+type Objective = (x: number[]) => [number, number, number, number]
+
+/** Value, analytic gradient and the Hessian by forward differences of the gradient (symmetrised). */
+function derivatives(f: Objective, x: number[], h = 1e-5): { g: number[], H: number[][], f0: number } {
+  const [f0, ...g] = f(x)
   const n = x.length
-  const f0 = f(x)
-  const g = new Array<number>(n).fill(0)
   const H = Array.from({ length: n }, () => new Array<number>(n).fill(0))
-  const at = (d: [number, number][]): number => {
+  for (let j = 0; j < n; j++) {
     const y = [...x]
-    for (const [i, s] of d) y[i]! += s
-    return f(y)
+    y[j]! += h
+    const gj = f(y).slice(1)
+    for (let i = 0; i < n; i++) H[i]![j] = (gj[i]! - g[i]!) / h
   }
-  for (let i = 0; i < n; i++) {
-    const fp = at([[i, h]])
-    const fm = at([[i, -h]])
-    g[i] = (fp - fm) / (2 * h)
-    H[i]![i] = (fp - 2 * f0 + fm) / (h * h)
-    for (let j = 0; j < i; j++) {
-      const v = (at([[i, h], [j, h]]) - at([[i, h], [j, -h]]) - at([[i, -h], [j, h]]) + at([[i, -h], [j, -h]])) / (4 * h * h)
-      H[i]![j] = v
-      H[j]![i] = v
-    }
-  }
+  for (let i = 0; i < n; i++) for (let j = 0; j < i; j++) H[i]![j] = H[j]![i] = 0.5 * (H[i]![j]! + H[j]![i]!)
   return { g, H, f0 }
 }
 
@@ -560,7 +610,7 @@ function invert(A: number[][]): number[][] | null {
 
 /** Damped Newton (Levenberg–Marquardt on the Hessian) to the mode of f from x0. */
 
-function findMode(f: (x: number[]) => number, x0: number[]): { x: number[], H: number[][] } {
+function findMode(f: Objective, x0: number[]): { x: number[], H: number[][] } {
   let x = [...x0]
   let lambda = 1e-3
   let d = derivatives(f, x)
@@ -574,7 +624,7 @@ function findMode(f: (x: number[]) => number, x0: number[]): { x: number[], H: n
     const cap = Math.max(...step.map(Math.abs))
     const scaled = cap > 1 ? step.map(s => s / cap) : step // no step longer than 1 in ln units
     const y = x.map((v, i) => v + scaled[i]!)
-    const fy = f(y)
+    const fy = f(y)[0]
 
     if (Number.isFinite(fy) && fy <= d.f0) {
       const small = Math.max(...scaled.map(Math.abs)) < 1e-6 || d.f0 - fy < 1e-10
@@ -608,7 +658,7 @@ interface Fitted { post: Posterior, data: Datum[], x: number[] }
 
 /**
  * The posterior of one glass: mode by damped Newton on the linearised model, relinearised at the mode
- * until it stays in the same THETA_GRID cell — first with each vote carried by its pour's response
+ * until it lies within RELINEARISE_LN of the linearisation point — first with each vote carried by its pour's response
  * (cheap), then with every vote's own model run at the mode (exact residuals) — then the Laplace
  * covariance of (ln f, ln k) from the inverse Hessian, the scale s integrated out in the same approximation.
  */
@@ -628,8 +678,7 @@ function fitGlass(votes: Vote[], cache: ModelCache, P0: [[number, number], [numb
     const r = posteriorOf(data, [0, 0], P0, x)
     fitted = { post: r.post, data, x: r.x }
     x = r.x
-    const grid = (t: number): number => Math.round(t / THETA_GRID)
-    const same = grid(x[0]!) === grid(theta[0]) && grid(x[1]!) === grid(theta[1])
+    const same = near(x, data[0]!.lin.theta0)
     theta = [x[0]!, x[1]!]
     if (same && (exact || pass === 0)) break // at θ = 0 the cheap and the exact pass are the same
     if (same) exact = true
@@ -639,7 +688,7 @@ function fitGlass(votes: Vote[], cache: ModelCache, P0: [[number, number], [numb
 
 /**
  * A room's posterior: from its votes' linearisation at the glass's mode, relinearised exactly (every
- * condition's own run) at the room's mode until it stays in one THETA_GRID cell (at most 4 passes).
+ * condition's own run) at the room's mode until it lies within RELINEARISE_LN of the linearisation point (at most 4 passes).
  */
 function fitRoom(data0: Datum[], cache: ModelCache, m0: [number, number], P0: [[number, number], [number, number]], x0: number[]): Fitted {
   let data = data0
@@ -649,9 +698,7 @@ function fitRoom(data0: Datum[], cache: ModelCache, m0: [number, number], P0: [[
     const r = posteriorOf(data, m0, P0, x)
     fitted = { post: r.post, data, x: r.x }
     x = r.x
-    const cell = (t: number): number => Math.round(t / THETA_GRID)
-    const lin = data[0]!.lin.theta0
-    if (cell(x[0]!) === cell(lin[0]) && cell(x[1]!) === cell(lin[1])) break
+    if (near(x, data[0]!.lin.theta0, pass === 0 ? ROOM_RELINEARISE_LN : RELINEARISE_LN)) break
     const next: Datum[] = []
     for (const d of data) {
       const l = cache.linear(d.v, [x[0]!, x[1]!], true)
@@ -760,7 +807,7 @@ export function calibrate(observations: FitObservation[], options: CalibrateOpti
       groups.push(groupResult(glassKey, roomKey, roomVotes, r, o, [Math.sqrt(roomPrior[0][0]), Math.sqrt(roomPrior[1][1])]))
     }
   }
-  return { groups }
+  return { groups, modelRuns: cache.count }
 }
 
 /** The calibration a prediction uses for a group, or null unless its status is 'applied'. */
