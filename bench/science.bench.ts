@@ -42,4 +42,5 @@ const glasses = Array.from({ length: 6 }, (_, g) => syntheticObservations({
 }))
 const season = glasses.flat()
 console.log(`calibrate: ${season.length} observations over ${glasses.length} glasses`)
+console.log(`calibrate: ${calibrate(season).modelRuns} model runs per call`)
 time('calibrate, 2,000 observations over 6 glasses', () => calibrate(season), 10, 2)
