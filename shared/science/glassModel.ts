@@ -16,6 +16,7 @@ import {
 import { viscosityHydroalcoholic_mPa_s, sugarViscosityFactor } from './viscosity'
 import { mixtureSigmaUnchecked as mixtureSigma } from './surfaceTension'
 import { activityCoefficientsGlass, findAzeotrope, isothermalAzeotropeMoleFraction } from './vle'
+import type { AppliedCalibration } from './calibration'
 
 /**
  * Default wall angle, degrees from horizontal: the bowl of a typical tulip-shaped glass leans
@@ -180,6 +181,8 @@ export interface FilmResult {
   predictions: TearPrediction
   /** Tear fall speed if the liquid had the solvent's viscosity (no sugar), mm/s (null if no tears). */
   tearFallSpeedUnsweetened_mm_s: number | null
+  /** The calibration the figures were computed with; null: the published defaults. */
+  calibration: AppliedCalibration | null
 }
 
 /** One field's problem, for an API route's 400 answer. */
@@ -369,7 +372,7 @@ function alcoholLossPer10Min(p: Prepared, ethanolFlux_kg_m2_s: number): number {
  * activityIndex, viscosity, uncertainty). Throws RangeError for inputs outside their ranges.
  * Never returns NaN.
  */
-export function computeFilm(input: FilmInputs): FilmResult {
+export function computeFilm(input: FilmInputs, options?: { calibration?: AppliedCalibration | null }): FilmResult {
   const p = prepare(input)
   const { i, c } = p
   const x1 = c.solventMoleFraction
@@ -444,6 +447,7 @@ export function computeFilm(input: FilmInputs): FilmResult {
       ranges: predictionRanges(p),
     },
     tearFallSpeedUnsweetened_mm_s: tearsExpected && tearsRun(i.kind, bare) ? bare.tearFallSpeed_mm_s : null,
+    calibration: options?.calibration ?? null,
   }
 }
 

@@ -1,0 +1,54 @@
+/**
+ * Which calibration a glass's predictions use, and the words that tell a guest so. Pure; the server
+ * runs the fit (server/utils/calibration.ts), the pour page and the card print these lines.
+ */
+import type { AppliedCalibration, GroupCalibration } from './science/calibration'
+
+/** The group's figures as a prediction uses them. */
+export function appliedOf(g: GroupCalibration): AppliedCalibration {
+  return { parameters: { ...g.parameters }, sdLn: { ...g.sdLn }, observations: g.observations }
+}
+
+/**
+ * The calibration for one glass in one room: the glass-in-room group when it is applied, else the
+ * glass over every room when that is applied, else null (the published defaults).
+ */
+export function pickAppliedGroup(groups: GroupCalibration[], glassKey: string, roomKey: string): AppliedCalibration | null {
+  const inRoom = groups.find(g => g.glassKey === glassKey && g.roomKey === roomKey && g.status === 'applied')
+  const overall = groups.find(g => g.glassKey === glassKey && g.roomKey === null && g.status === 'applied')
+  const g = inRoom ?? overall
+  return g ? appliedOf(g) : null
+}
+
+const readings = (n: number) => `${n} reading${n === 1 ? '' : 's'}`
+
+/**
+ * The pour page's sentence when its figures are tuned; null when they are the model's published
+ * defaults (then nothing is said).
+ */
+export function calibrationSentence(c: AppliedCalibration | null): string | null {
+  if (!c) return null
+  return `These ranges are tuned to this glass by ${readings(c.observations)} that guests and hosts took here, so they reflect how it behaves in this room rather than the textbook defaults.`
+}
+
+/** "pours 1 and 3", "pour 2", "pours 1, 2 and 4". */
+function pourList(positions: number[]): string {
+  if (positions.length === 1) return `pour ${positions[0]}`
+  return `pours ${positions.slice(0, -1).join(', ')} and ${positions.at(-1)}`
+}
+
+/**
+ * The card's one line about tuned figures, grouped by the readings behind them; null when every
+ * pour uses the defaults.
+ */
+export function calibrationCardLine(pours: { position: number, calibration: AppliedCalibration | null }[]): string | null {
+  const byCount = new Map<number, number[]>()
+  for (const p of pours) {
+    if (!p.calibration) continue
+    byCount.set(p.calibration.observations, [...(byCount.get(p.calibration.observations) ?? []), p.position])
+  }
+  if (!byCount.size) return null
+  const parts = [...byCount].map(([n, positions]) => `${pourList(positions)} by ${readings(n)}`)
+  const text = parts.join('; ')
+  return `Tuned here: figures for ${text} of the same glass taken at this venue.`
+}
