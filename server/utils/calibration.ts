@@ -1,4 +1,4 @@
-import { and, count, eq, max } from 'drizzle-orm'
+import { count, eq, max } from 'drizzle-orm'
 import type { Venue } from '../db/schema/venues'
 import type { Observation } from '../db/schema/observations'
 import { calibrate, type AppliedCalibration, type CalibrationResult, type FitObservation } from '../../shared/science/calibration'
@@ -110,5 +110,5 @@ export async function appliedCalibrations(venue: Pick<Venue, 'id' | 'calibration
 
 /** Turns the venue's calibration on or off; predictions follow on the next read. */
 export async function setCalibrationEnabled(venueId: number, enabled: boolean): Promise<void> {
-  await useDb().update(tables.venues).set({ calibrationEnabled: enabled }).where(and(eq(tables.venues.id, venueId)))
+  await useDb().update(tables.venues).set({ calibrationEnabled: enabled }).where(eq(tables.venues.id, venueId))
 }
