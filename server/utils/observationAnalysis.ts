@@ -156,14 +156,22 @@ function chart(rows: ObservationRow[]): ChartProduct[] {
 
 const pct = (n: number, d: number) => (d ? `${Math.round((100 * n) / d)} %` : '—')
 
-function chartText(products: ChartProduct[], stats: AgreementStats[]): string[] {
+function chartText(products: ChartProduct[], stats: AgreementStats[]): ObservationSummary['chartText'] {
   const byId = new Map(stats.map(s => [s.id, s]))
-  return products.map((p) => {
-    const s = byId.get(p.productId)
-    const band = p.band ? `predicted band ${p.band.low.toFixed(1)}–${p.band.high.toFixed(1)} mm` : 'no band predicted'
-    const seen = p.bandSeen.length ? `seen ${Math.min(...p.bandSeen)}–${Math.max(...p.bandSeen)} mm (median ${median(p.bandSeen)})` : 'no band readings'
-    return `${p.name}, ${p.abvPctVol} % ABV: ${band}, ${seen}; ${s ? `${pct(s.band.inside, s.band.compared)} of ${s.band.compared} band readings inside` : ''}.`
-  })
+  return {
+    band: products.map((p) => {
+      const s = byId.get(p.productId)
+      const band = p.band ? `predicted band ${p.band.low.toFixed(1)}–${p.band.high.toFixed(1)} mm` : 'no band predicted'
+      const seen = p.bandSeen.length ? `seen ${Math.min(...p.bandSeen)}–${Math.max(...p.bandSeen)} mm (median ${median(p.bandSeen)})` : 'no band readings'
+      return `${p.name}, ${p.abvPctVol} % ABV: ${band}, ${seen}; ${pct(s?.band.inside ?? 0, s?.band.compared ?? 0)} of ${s?.band.compared ?? 0} readings inside.`
+    }),
+    speed: products.map((p) => {
+      const s = byId.get(p.productId)
+      const speed = p.speed ? `predicted ${p.speed.low.toFixed(1)}–${p.speed.high.toFixed(1)} mm/s` : 'no tears predicted'
+      const seen = TEAR_SPEEDS.map(k => `${p.speedSeen[k]} ${k}`).join(', ')
+      return `${p.name}, ${p.abvPctVol} % ABV: ${speed}; seen ${seen}; ${pct(s?.speed.inside ?? 0, s?.speed.compared ?? 0)} of ${s?.speed.compared ?? 0} inside.`
+    }),
+  }
 }
 
 interface PanelCache { version: string, since: Map<string, string | null> }

@@ -93,8 +93,8 @@ export interface ObservationSummary {
   byGlass: AgreementStats[]
   byFlight: AgreementStats[]
   chart: ChartProduct[]
-  /** The chart's text equivalent, one line per product. */
-  chartText: string[]
+  /** The charts' text equivalents, one line per product: band heights, tear speeds. */
+  chartText: { band: string[], speed: string[] }
   outliers: ObservationRow[]
   calibration: { enabled: boolean, groups: CalibrationPanelRow[] }
 }
@@ -105,4 +105,3 @@ export interface ObservationPage {
   pageSize: number
   total: number
 }
-
