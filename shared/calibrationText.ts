@@ -5,7 +5,7 @@
 import type { AppliedCalibration, GroupCalibration } from './science/calibration'
 
 /** The group's figures as a prediction uses them. */
-export function appliedOf(g: GroupCalibration): AppliedCalibration {
+function appliedOf(g: GroupCalibration): AppliedCalibration {
   return { parameters: { ...g.parameters }, sdLn: { ...g.sdLn }, observations: g.observations }
 }
 

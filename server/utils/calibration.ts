@@ -9,7 +9,7 @@ import { drinkKindOf } from '../../shared/pours'
 export interface FitRow { row: Observation, fit: FitObservation }
 
 /** The room key of a venue's observations: the venue itself until venues have rooms of their own. */
-export const roomKeyOf = (venueId: number) => String(venueId)
+const roomKeyOf = (venueId: number) => String(venueId)
 
 /**
  * One device at one pour of one session counts once (the fit weighs by it); a host's entry stands

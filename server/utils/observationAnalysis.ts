@@ -6,6 +6,7 @@ import { compareObservation, TEAR_SPEEDS, type TearSpeed } from '../../shared/ob
 import { calibrate, type CalibrationResult, type GroupCalibration } from '../../shared/science/calibration'
 import { drinkKindOf } from '../../shared/pours'
 import type { ObservationFilter } from '../../shared/schemas/observationAnalysis'
+import type { FitRow } from './calibration'
 import type { AgreementStats, CalibrationPanelRow, ChartProduct, ObservationRow, ObservationSummary, RangeView } from '../../shared/types/observationAnalysis'
 
 /** The flags' words (codes the capture side writes); an unknown code is spelt out from itself. */
@@ -15,7 +16,7 @@ const FLAG_WORDS: Record<string, string> = {
   band_too_soon: 'a band read within a minute of pouring',
   tears_without_alcohol: 'tears reported on a pour the model gives none',
 }
-export const flagWords = (code: string) => FLAG_WORDS[code] ?? code.replaceAll('_', ' ')
+const flagWords = (code: string) => FLAG_WORDS[code] ?? code.replaceAll('_', ' ')
 
 /**
  * A band reading is far outside when it misses its range by more than the range's own width (and
@@ -183,12 +184,12 @@ const groupKey = (g: Pick<GroupCalibration, 'glassKey' | 'roomKey'>) => `${g.gla
  * observations up to it first applies (found by halving, about log2(n) fits; the status rises with
  * the readings, so the first applying prefix is where cards changed).
  */
-function appliedSince(fitRows: FitRow[], result: CalibrationResult): Map<string, string | null> {
+export function appliedSince(fitRows: FitRow[], result: CalibrationResult, fit: typeof calibrate = calibrate): Map<string, string | null> {
   const clean = fitRows.filter(r => r.row.flags.length === 0).sort((a, b) => a.row.recordedAt.getTime() - b.row.recordedAt.getTime() || a.row.id - b.row.id)
   const out = new Map<string, string | null>()
   for (const g of result.groups.filter(x => x.status === 'applied')) {
     const mine = clean.filter(r => r.fit.glassKey === g.glassKey && (g.roomKey === null || r.fit.roomKey === g.roomKey))
-    const applies = (n: number) => calibrate(mine.slice(0, n).map(r => r.fit)).groups.some(x => groupKey(x) === groupKey(g) && x.status === 'applied')
+    const applies = (n: number) => fit(mine.slice(0, n).map(r => r.fit)).groups.some(x => groupKey(x) === groupKey(g) && x.status === 'applied')
     let lo = 1
     let hi = mine.length
     while (lo < hi) {

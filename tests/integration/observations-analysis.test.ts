@@ -6,6 +6,8 @@ import { withDb } from '../support/db'
 import { runTag } from '../support/labSheets'
 import { demoFlightId } from '../support/booking'
 import { TEAR_SPEED_BINS_MM_S, type TearSpeed } from '../../shared/observations'
+import { computeFilm } from '../../shared/science'
+import { DEMO_FLIGHTS } from '../../server/demo/data'
 
 /**
  * The manager's predicted-against-observed: rows written straight into the table with values chosen
@@ -25,7 +27,7 @@ interface Seed { band: number | null, noClear?: boolean, speed?: TearSpeed | nul
 
 async function insert(rows: Seed[], room: { relativeHumidityPct: number, airTempC: number }) {
   await withDb(async (c) => {
-    const [[pour]] = await c.query('SELECT fp.id, fp.product_id AS productId, pm.id AS measurementId, pm.abv_pct_vol AS abv, pm.residual_sugar_g_l AS sugar, fp.serving_temp_c AS temp FROM flight_pours fp JOIN product_measurements pm ON pm.product_id = fp.product_id WHERE fp.flight_id = ? ORDER BY pm.id DESC LIMIT 1', [flightId]) as any
+    const [[pour]] = await c.query('SELECT fp.id, fp.product_id AS productId, pm.id AS measurementId, pm.abv_pct_vol AS abv, pm.residual_sugar_g_l AS sugar, fp.serving_temp_c AS temp FROM flight_pours fp JOIN product_measurements pm ON pm.product_id = fp.product_id WHERE fp.flight_id = ? AND fp.position = 1 ORDER BY pm.id DESC LIMIT 1', [flightId]) as any
     const [[venue]] = await c.query('SELECT id FROM venues ORDER BY id LIMIT 1') as any
     for (const r of rows) {
       await c.query(
@@ -52,8 +54,8 @@ beforeAll(async () => {
   })
   expect(p.status).toBe(201)
   productId = p.body.id
-  const f = await manager.post('/api/flights', { name: `Analysis flight ${tag}`, summary: 'Predicted against observed', pours: [{ productId, volumeMl: 60, glassId, servingTempC: 10 }] })
-  expect(f.status).toBe(201)
+  const f = await manager.post('/api/flights', { name: `Analysis flight ${tag}`, summary: 'Predicted against observed', pours: [{ productId, volumeMl: 60, glassId, servingTempC: 10 }, { productId, volumeMl: 45, glassId, servingTempC: 12 }] })
+  expect(f.status, JSON.stringify(f.body)).toBe(201)
   flightId = f.body.id
   expect((await manager.post(`/api/flights/${flightId}/publish`)).status).toBe(200)
   const page = await new Client().get(`/api/flights/${flightId}/pours/1`)
@@ -189,11 +191,12 @@ describe('the calibration switch', () => {
     expect(offPanel.groups.every((g: { inUse: boolean }) => !g.inUse)).toBe(true)
     const page = (await anon.get(`/api/flights/${demo}/pours/${tulipPour}`)).body
     expect(page.calibration).toBeNull()
-    // The published defaults: the public model's own answer for the same pour, glass and room.
+    // The published defaults: the model run here, with no calibration, on the same pour, glass and room.
     const r = page.room
-    const science = await anon.get(`/api/science/film?abv=${page.abvPctVol}&tempC=${page.servingTempC}&sugarGL=${page.residualSugarGL}&wallAngleDeg=${page.pour.glass.wallAngleDeg}&rh=${r.relativeHumidityPct}&airTempC=${r.airTempC}&kind=still`)
-    expect(science.status).toBe(200)
-    const p = science.body.predictions
+    const demoPour = DEMO_FLIGHTS[0]!.pours[tulipPour - 1]!
+    const defaults = computeFilm({ abvPctVol: page.abvPctVol, tempC: page.servingTempC, sugarGL: page.residualSugarGL, wallAngleDeg: page.pour.glass.wallAngleDeg, bowlDiameterMm: page.pour.glass.bowlDiameterMm, pourVolumeMl: demoPour.volumeMl, kind: 'still', room: { relativeHumidityPct: r.relativeHumidityPct, airTempC: r.airTempC } })
+    expect(defaults.calibration).toBeNull()
+    const p = defaults.predictions
     expect(filmOf(page)).toEqual({ band: p.clearBandHeight_mm, bandRange: p.ranges.clearBandHeight_mm, speed: p.tearFallSpeed_mm_s, speedRange: p.ranges.tearFallSpeed_mm_s })
     const card = (await manager.get(`/api/flights/${demo}/card`)).body
     expect(card.calibration).toBeNull()
