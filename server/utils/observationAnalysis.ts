@@ -229,6 +229,18 @@ async function calibrationPanel(venue: Venue): Promise<ObservationSummary['calib
   return { enabled: venue.calibrationEnabled, groups }
 }
 
+/** One device's entries at one pour and session count as one outlier, however many it sent. */
+function groupOutliers(rows: ObservationRow[], devices: Map<number, string>): ObservationSummary['outliers'] {
+  const groups = new Map<string, { row: ObservationRow, entries: number }>()
+  for (const r of rows) {
+    const key = deviceOf(r, devices)
+    const g = groups.get(key)
+    if (g) g.entries++
+    else groups.set(key, { row: r, entries: 1 })
+  }
+  return [...groups.values()]
+}
+
 /** Everything the manager's page shows for the filters: counts, agreement, the charts, outliers, the calibration. */
 export async function observationSummary(venue: Venue, f: ObservationFilter): Promise<ObservationSummary> {
   const rows = await loadObservationRows(venue, f)
@@ -245,7 +257,7 @@ export async function observationSummary(venue: Venue, f: ObservationFilter): Pr
     byFlight: stats(rows, r => r.flight, devices),
     chart: products,
     chartText: chartText(products, byProduct),
-    outliers: rows.filter(r => r.outlier !== null).slice(0, 50),
+    outliers: groupOutliers(rows.filter(r => r.outlier !== null), devices).slice(0, 50),
     calibration: await calibrationPanel(venue),
   }
 }

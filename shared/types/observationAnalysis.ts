@@ -95,7 +95,8 @@ export interface ObservationSummary {
   chart: ChartProduct[]
   /** The charts' text equivalents, one line per product: band heights, tear speeds. */
   chartText: { band: string[], speed: string[] }
-  outliers: ObservationRow[]
+  /** Flagged or far-off readings, newest first; one device's repeated entries at one pour and session shown once with their count. */
+  outliers: { row: ObservationRow, entries: number }[]
   calibration: { enabled: boolean, groups: CalibrationPanelRow[] }
 }
 
