@@ -28,7 +28,7 @@ const readings = (n: number) => `${n} reading${n === 1 ? '' : 's'}`
  */
 export function calibrationSentence(c: AppliedCalibration | null): string | null {
   if (!c) return null
-  return `These ranges are tuned to this glass by ${readings(c.observations)} that guests and hosts took here, so they reflect how it behaves in this room rather than the textbook defaults.`
+  return `These ranges are tuned to this glass by ${readings(c.observations)} that guests and hosts took here, rather than the model's published defaults.`
 }
 
 /** "pours 1 and 3", "pour 2", "pours 1, 2 and 4". */
@@ -38,17 +38,22 @@ function pourList(positions: number[]): string {
 }
 
 /**
- * The card's one line about tuned figures, grouped by the readings behind them; null when every
+ * The card's one line about tuned figures, grouped by glass with the readings behind each; null when every
  * pour uses the defaults.
  */
-export function calibrationCardLine(pours: { position: number, calibration: AppliedCalibration | null }[]): string | null {
-  const byCount = new Map<number, number[]>()
+export function calibrationCardLine(pours: { position: number, glass: string, calibration: AppliedCalibration | null }[]): string | null {
+  const byGlass = new Map<string, [number, number[]]>()
   for (const p of pours) {
     if (!p.calibration) continue
-    byCount.set(p.calibration.observations, [...(byCount.get(p.calibration.observations) ?? []), p.position])
+    const g = byGlass.get(p.glass) ?? [p.calibration.observations, []]
+    g[1].push(p.position)
+    byGlass.set(p.glass, g)
   }
-  if (!byCount.size) return null
-  const parts = [...byCount].map(([n, positions]) => `${pourList(positions)} by ${readings(n)}`)
-  const text = parts.join('; ')
-  return `Tuned here: figures for ${text} of the same glass taken at this venue.`
+  if (!byGlass.size) return null
+  const groups = [...byGlass.values()]
+  if (groups.length === 1) {
+    const [n, positions] = groups[0]!
+    return `Tuned here: figures for ${pourList(positions)} rest on ${readings(n)} of ${positions.length === 1 ? 'its' : 'their'} glass taken at this venue.`
+  }
+  return `Tuned here, from readings of each glass taken at this venue: ${groups.map(([n, positions]) => `${pourList(positions)} (${readings(n)})`).join(', ')}.`
 }

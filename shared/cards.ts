@@ -195,7 +195,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       definition: standardDrinkDefinition(venue),
     },
     room: cardRoom(opts.room, venue.temperatureUnit),
-    calibration: calibrationCardLine(flight.pours.map(p => ({ position: p.position, calibration: p.film.calibration }))),
+    calibration: calibrationCardLine(flight.pours.map(p => ({ position: p.position, glass: p.glass.name, calibration: p.film.calibration }))),
     why: CARD_WHY,
     quality: 'Tears say nothing about quality: alcohol and evaporation make them; sugar only slows them.',
     // The fixed block of responsible service (a manager cannot remove it), then the venue's own lines.

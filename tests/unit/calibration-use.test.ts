@@ -35,12 +35,12 @@ describe('what the guest is told', () => {
     expect(calibrationSentence(applied(84))).toMatch(/tuned to this glass by 84 readings/)
     expect(calibrationSentence(applied(1))).toMatch(/by 1 reading that/)
   })
-  it('puts one line on the card, grouping pours by the readings behind them', () => {
-    expect(calibrationCardLine([{ position: 1, calibration: null }, { position: 2, calibration: null }])).toBeNull()
-    expect(calibrationCardLine([{ position: 1, calibration: null }, { position: 3, calibration: applied(84) }, { position: 4, calibration: applied(84) }]))
-      .toBe('Tuned here: figures for pours 3 and 4 by 84 readings of the same glass taken at this venue.')
-    expect(calibrationCardLine([{ position: 2, calibration: applied(12) }, { position: 5, calibration: applied(40) }]))
-      .toBe('Tuned here: figures for pour 2 by 12 readings; pour 5 by 40 readings of the same glass taken at this venue.')
+  it('puts one line on the card, grouping pours by their glass (two glasses with as many readings stay apart)', () => {
+    expect(calibrationCardLine([{ position: 1, glass: 'Flute', calibration: null }, { position: 2, glass: 'Flute', calibration: null }])).toBeNull()
+    expect(calibrationCardLine([{ position: 1, glass: 'Flute', calibration: null }, { position: 3, glass: 'Tulip', calibration: applied(84) }, { position: 4, glass: 'Tulip', calibration: applied(84) }]))
+      .toBe('Tuned here: figures for pours 3 and 4 rest on 84 readings of their glass taken at this venue.')
+    expect(calibrationCardLine([{ position: 2, glass: 'Flute', calibration: applied(40) }, { position: 5, glass: 'Nosing', calibration: applied(40) }]))
+      .toBe('Tuned here, from readings of each glass taken at this venue: pour 2 (40 readings), pour 5 (40 readings).')
   })
 })
 
