@@ -59,6 +59,8 @@ interface CachedFit { version: string, result: CalibrationResult, computedAt: Da
 const FIT_CACHE_MAX = 64
 const fitCache = new Map<number, CachedFit>()
 const running = new Map<string, Promise<CachedFit>>()
+/** How long a guest's page waits for a new fit before it uses the previous one. */
+const STALE_AFTER_MS = 300
 
 /**
  * A cheap key that changes whenever the fit's input can: a new or deleted observation (count and
@@ -72,9 +74,11 @@ async function fitVersion(venueId: number): Promise<string> {
 /**
  * The venue's calibration from its unflagged observations, recomputed only when an observation was
  * added or removed (calibrate is pure, so a cached result for the same rows is the same result).
- * Parallel callers share one fit.
+ * Parallel callers share one fit. `stale: true` (guests' pages) waits at most STALE_AFTER_MS for a new
+ * fit, then answers with the previous one while the new one finishes, so no guest waits long for a
+ * fit; the manager's page always waits for the new one.
  */
-export async function venueCalibration(venueId: number): Promise<CachedFit> {
+export async function venueCalibration(venueId: number, opts: { stale?: boolean } = {}): Promise<CachedFit> {
   const version = await fitVersion(venueId)
   const cached = fitCache.get(venueId)
   if (cached?.version === version) return cached
@@ -92,6 +96,11 @@ export async function venueCalibration(venueId: number): Promise<CachedFit> {
     })().finally(() => running.delete(key))
     running.set(key, job)
   }
+  if (opts.stale && cached) {
+    job.catch(err => console.error('[larmoir] calibration fit failed', err))
+    const late = new Promise<CachedFit>(resolve => setTimeout(resolve, STALE_AFTER_MS, cached).unref())
+    return Promise.race([job, late])
+  }
   return job
 }
 
@@ -103,7 +112,7 @@ export async function venueCalibration(venueId: number): Promise<CachedFit> {
 export async function appliedCalibrations(venue: Pick<Venue, 'id' | 'calibrationEnabled'>, glassIds: number[]): Promise<Map<number, AppliedCalibration | null>> {
   const out = new Map<number, AppliedCalibration | null>(glassIds.map(id => [id, null]))
   if (!venue.calibrationEnabled || !glassIds.length) return out
-  const { result } = await venueCalibration(venue.id)
+  const { result } = await venueCalibration(venue.id, { stale: true })
   for (const id of glassIds) out.set(id, pickAppliedGroup(result.groups, String(id), roomKeyOf(venue.id)))
   return out
 }
