@@ -14,6 +14,7 @@ import { cautionLines } from './cautions'
 import { standardDrinkDefinition } from './utils/drinks'
 import { venueCardPaper, type CardPaper } from './paper'
 import type { RenderedText } from './types/content'
+import { calibrationCardLine } from './calibrationText'
 
 export interface CardVenue {
   name: string
@@ -194,6 +195,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       definition: standardDrinkDefinition(venue),
     },
     room: cardRoom(opts.room, venue.temperatureUnit),
+    calibration: calibrationCardLine(flight.pours.map(p => ({ position: p.position, glass: p.glass.name, calibration: p.film.calibration }))),
     why: CARD_WHY,
     quality: 'Tears say nothing about quality: alcohol and evaporation make them; sugar only slows them.',
     // The fixed block of responsible service (a manager cannot remove it), then the venue's own lines.

@@ -125,6 +125,8 @@ function footGroups(card: FlightCard, fit: CardFit): Piece[][] {
     ...(al ? [[{ blocks: plain(al, { bold: true }), size: T.body, color: INK, gap: 0 }]] : []),
     // The air the figures assume: the host's reading for the session, or the venue's usual room.
     [{ blocks: plain(card.room.text), size: T.body, color: INK, gap: 0 }],
+    // Said only when some figures are tuned by the venue's own readings.
+    ...(card.calibration ? [[{ blocks: plain(card.calibration), size: T.fine, color: INK, gap: 0 }]] : []),
     ...(fit.why ? [[{ blocks: plain(card.why), size: T.fine, color: SOFT, gap: 0 }]] : []),
     [{ blocks: plain(card.quality, { italic: true }), size: T.fine, color: SOFT, gap: 0 }],
     ...card.cautions.map(line => [{ blocks: plain(line), size: T.fine, color: INK, gap: 0 }]),

@@ -20,7 +20,8 @@ async function loadPourContext(venue: Venue, specs: PourSpec[]) {
     : []
   const notes = await publishedNotes(venue.id, 'product_note', [...products.keys()])
   const photos = await productPhotos(venue.id, [...products.keys()])
-  return { products, glasses: new Map(glassRows.map(g => [g.id, g])), notes, photos }
+  const calibrations = await appliedCalibrations(venue, glassRows.map(g => g.id))
+  return { products, glasses: new Map(glassRows.map(g => [g.id, g])), notes, photos, calibrations }
 }
 type PourContext = Awaited<ReturnType<typeof loadPourContext>>
 
@@ -35,7 +36,7 @@ function computeWith(venue: Venue, ctx: PourContext, specs: PourSpec[], room: Ro
   const pours = specs.map((s, i) => {
     const p = ctx.products.get(s.productId)!
     const g = ctx.glasses.get(s.glassId)!
-    const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: s.servingTempC, volumeMl: s.volumeMl, wallAngleDeg: g.wallAngleDeg, bowlDiameterMm: g.bowlDiameterMm, kind: drinkKindOf(p.kind) }, venue, room)
+    const facts = pourFacts({ abvPctVol: p.current.abvPctVol, residualSugarGL: p.current.residualSugarGL, servingTempC: s.servingTempC, volumeMl: s.volumeMl, wallAngleDeg: g.wallAngleDeg, bowlDiameterMm: g.bowlDiameterMm, kind: drinkKindOf(p.kind), calibration: ctx.calibrations.get(g.id) ?? null }, venue, room)
     return {
       position: i + 1,
       productId: p.id,

@@ -1,5 +1,6 @@
 import { computeFilm, ethanolGrams, type DrinkKind, type FilmResult, type RoomAir } from '../../shared/science'
 import type { Venue } from '../db/schema/venues'
+import type { AppliedCalibration } from '../../shared/science/calibration'
 
 export interface PourNumbers {
   abvPctVol: number
@@ -12,6 +13,8 @@ export interface PourNumbers {
   bowlDiameterMm?: number
   /** What the glass holds, as the model sees it (`drinkKindOf` of the product's kind). */
   kind: DrinkKind
+  /** The glass's calibration at this venue (`appliedCalibrations`); null or absent: the published defaults. */
+  calibration?: AppliedCalibration | null
 }
 
 export interface PourFacts {
@@ -42,10 +45,13 @@ function filmFor(p: PourNumbers, room: RoomAir): FilmResult {
   const { abvPctVol, servingTempC: tempC, residualSugarGL: sugarGL, wallAngleDeg, bowlDiameterMm, kind } = p
   // The pour's volume sets how fast it loses its alcohol; clamp to the model's range (5–500 mL).
   const pourVolumeMl = Math.min(500, Math.max(5, p.volumeMl))
-  const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}|${bowlDiameterMm ?? ''}|${pourVolumeMl}|${kind}|${room.relativeHumidityPct}|${room.airTempC}`
+  const calibration = p.calibration ?? null
+  const c = calibration
+  const calibrationKey = c ? `${c.parameters.exchangeFactor},${c.parameters.massTransferFactor},${c.sdLn.exchangeFactor},${c.sdLn.massTransferFactor},${c.observations}` : ''
+  const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}|${bowlDiameterMm ?? ''}|${pourVolumeMl}|${kind}|${room.relativeHumidityPct}|${room.airTempC}|${calibrationKey}`
   let film = filmCache.get(key)
   if (!film) {
-    film = computeFilm({ abvPctVol, tempC, sugarGL, wallAngleDeg, bowlDiameterMm: bowlDiameterMm === undefined ? undefined : Math.min(150, Math.max(30, bowlDiameterMm)), pourVolumeMl, kind, room: { relativeHumidityPct: room.relativeHumidityPct, airTempC: room.airTempC } })
+    film = computeFilm({ abvPctVol, tempC, sugarGL, wallAngleDeg, bowlDiameterMm: bowlDiameterMm === undefined ? undefined : Math.min(150, Math.max(30, bowlDiameterMm)), pourVolumeMl, kind, room: { relativeHumidityPct: room.relativeHumidityPct, airTempC: room.airTempC } }, { calibration })
     if (filmCache.size >= FILM_CACHE_MAX) filmCache.delete(filmCache.keys().next().value!)
     filmCache.set(key, film)
   }

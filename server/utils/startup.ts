@@ -51,6 +51,8 @@ async function seedDemo(): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD)
   const pictures = await renderDemoPictures()
   const written: string[] = []
+  let season = null as { sessions: number, observations: number } | null
+  let seasonMs = 0
   await useDb().transaction(async (tx) => {
     const [venue] = await tx.insert(tables.venues).values(DEMO_VENUE).$returningId()
     const venueId = venue!.id
@@ -89,11 +91,19 @@ async function seedDemo(): Promise<void> {
     }
     await seedDemoContent(tx, venueId, { products: productIds, flights: flightIds, authorId: marketer?.id ?? null }, pictures, written)
     await seedDemoBookings(tx, venueId)
+    // After the bookings, which take the first upcoming sessions: the season adds past ones.
+    const seasonStarted = Date.now()
+    const published = DEMO_FLIGHTS.find(f => f.publish)
+    season = published
+      ? await seedDemoSeason(tx, venueId, { flightId: flightIds.get(published.name)!, hostId: host?.id ?? null, currency: DEMO_VENUE.currency, timeZone: DEMO_VENUE.timeZone })
+      : null
+    seasonMs = Date.now() - seasonStarted
   }).catch(async (err) => {
     for (const name of written) await removeImageFiles(name)
     throw err
   })
   console.log(`[larmoir] demo data loaded: ${DEMO_USERS.length} people, ${DEMO_PRODUCTS.length} products with notes and photos, ${DEMO_FLIGHTS.length} flights`)
+  if (season) console.log(`[larmoir] demo season: ${season.observations} invented observations at ${season.sessions} past sessions in ${seasonMs} ms`)
 }
 
 /**

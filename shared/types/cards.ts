@@ -66,6 +66,8 @@ export interface FlightCard {
   totals: { ethanolGrams: number, standardDrinks: number, volumeText: string, definition: string }
   /** The room's air every pour's figures on this card were computed for. */
   room: CardRoom
+  /** Which pours' figures are tuned by this venue's readings (shared/calibrationText.ts); null: all published defaults. */
+  calibration: string | null
   why: string
   quality: string
   cautions: string[]
@@ -88,6 +90,8 @@ export interface PourPage {
   pour: CardPour
   photo: ImageView | null
   description: string[]
+  /** One sentence when this glass's figures are tuned by the venue's readings; null on the defaults. */
+  calibration: string | null
   /** The room's air the pour's predictions and description were computed for (the film's own input). */
   room: RoomAir
   servingTempC: number

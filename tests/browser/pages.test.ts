@@ -85,6 +85,7 @@ const PAGES: Record<string, PageRow> = {
   '/host': { who: 'host', query: f => ({ date: f.sessionDay }), main: (p, f) => p.locator(`section[aria-labelledby="s-${f.session}"]`).getByRole('button', { name: 'Print all cards' }) },
   '/manage': { who: 'manager', main: p => p.getByRole('link', { name: /Active products/ }) },
   '/manage/bookings': { who: 'manager', main: p => p.getByRole('button', { name: 'Show', exact: true }) },
+  '/manage/observations': { who: 'manager', main: p => p.getByRole('link', { name: 'Download CSV' }) },
   '/manage/content': { who: 'marketing', main: (p, f) => p.locator(`a[href="/manage/content/product_note/${f.product}"]`) },
   '/manage/content/[kind]/[subject]': { who: 'marketing', params: f => ({ kind: 'product_note', subject: f.product }), main: p => p.getByLabel('Text (Markdown)') },
   '/manage/flights': { who: 'marketing', main: p => p.getByRole('table', { name: 'Flights' }).getByRole('link').first() },

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { describePour } from '../../../../../shared/science'
 import { buildFlightCard } from '../../../../../shared/cards'
+import { calibrationSentence } from '../../../../../shared/calibrationText'
 import type { PourPage } from '../../../../../shared/types/cards'
 
 const params = z.object({
@@ -24,6 +25,7 @@ export default defineEventHandler(async (event): Promise<PourPage> => {
     pour: card.pours.find(p => p.position === position)!,
     photo: pour.photo,
     description: describePour(pour.film, { temperatureUnit: venue.temperatureUnit === 'f' ? 'F' : 'C' }),
+    calibration: calibrationSentence(pour.film.calibration),
     room: pour.film.inputs.room,
     servingTempC: pour.servingTempC,
     residualSugarGL: pour.residualSugarGL,
