@@ -6,7 +6,7 @@
  */
 import { rangeText } from './science/predictions'
 import type { Range } from './science/uncertainty'
-import { BAND_READING_ERROR_MM, TEAR_COUNTS, TEAR_COUNT_BINS, TEAR_COUNT_LABELS, TEAR_SPEEDS, TEAR_SPEED_HINTS, TEAR_SPEED_LABELS, type Agreement, type TearCount, type TearSpeed } from './observations'
+import { BAND_READING_ERROR_MM, TEAR_COUNTS, TEAR_COUNT_BINS, TEAR_COUNT_LABELS, TEAR_SPEEDS, TEAR_SPEED_LABELS, TEAR_SPEED_SPANS, type Agreement, type TearCount, type TearSpeed } from './observations'
 import type { OthersSeen, PourObservations } from './types/observations'
 
 const AGAINST: Record<Exclude<Agreement, 'not_compared'>, string> = {
@@ -80,7 +80,7 @@ export function ownComparisonLines(view: PourObservations): string[] {
       : (p.tearsExpected ? 'You saw no tears, although the model expected some.' : 'You saw tears where the model expected none.'))
   }
   if (mine.tearSpeed && c.speed !== 'not_compared' && p.speed) {
-    out.push(`You timed them ${TEAR_SPEED_LABELS[mine.tearSpeed].toLowerCase()} (${TEAR_SPEED_HINTS[mine.tearSpeed]}): ${AGAINST[c.speed]}, ${rangeText(p.speed, 'mm/s')} or ${speedAsTime(p.speed)}.`)
+    out.push(`You timed them ${TEAR_SPEED_LABELS[mine.tearSpeed].toLowerCase()} (${TEAR_SPEED_SPANS[mine.tearSpeed]}): ${AGAINST[c.speed]} of ${rangeText(p.speed, 'mm/s')}, ${speedAsTime(p.speed)}.`)
   }
   if (mine.tearCount && c.count !== 'not_compared' && p.around) {
     out.push(`You counted ${TEAR_COUNT_LABELS[mine.tearCount].toLowerCase()} around the glass: ${AGAINST[c.count]} of ${countRangeText(p.around)}.`)
@@ -101,7 +101,11 @@ export function othersLines(view: PourObservations): string[] {
   if (mine !== null && banded >= 3) {
     const lower = o.band.filter(b => b.toMm <= mine).reduce((n, b) => n + b.count, 0)
     const higher = o.band.filter(b => b.fromMm > mine).reduce((n, b) => n + b.count, 0)
-    out.push(`Your band was higher than ${lower} and lower than ${higher} of their ${banded} band readings.`)
+    out.push(lower === banded
+      ? `Your band stood higher than all ${banded} of their band readings.`
+      : higher === banded
+        ? `Your band stood lower than all ${banded} of their band readings.`
+        : `Your band stood higher than ${lower} and lower than ${higher} of their ${banded} band readings.`)
   }
   const speed = mostOf<TearSpeed>(o.speed, TEAR_SPEEDS)
   if (speed && speed.total >= 2) out.push(`Most often the tears were called ${TEAR_SPEED_LABELS[speed.key].toLowerCase()} (${speed.n} of ${speed.total}).`)

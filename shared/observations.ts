@@ -135,7 +135,9 @@ export const TEAR_SPEED_HINTS: Record<TearSpeed, string> = {
   steady: 'about 2 seconds to slide 1 cm (1½ to 3)',
   fast: 'under 1½ seconds to slide 1 cm',
 }
-export const OBSERVED_SINCE_LABELS: Record<ObservedSince, string> = { pour: 'since it was poured', swirl: 'since I last swirled it' }
+/** Each speed bin as a span of seconds per centimetre, for sentences. */
+export const TEAR_SPEED_SPANS: Record<TearSpeed, string> = { slow: '3 s or more per cm', steady: '1½–3 s per cm', fast: 'under 1½ s per cm' }
+export const OBSERVED_SINCE_LABELS: Record<ObservedSince, string> = { pour: 'the pour', swirl: 'the last swirl' }
 
 /** The step of the band's box: half a millimetre, finer than anyone reads a curved glass by eye. */
 export const BAND_READING_STEP_MM = 0.5
@@ -198,7 +200,6 @@ export const guestObservationSchema = z.object({
   challenge: challengeField,
   website: z.string({ error: 'Leave this box empty.' }).max(0, { error: 'Leave this box empty.' }).default(''),
 }).superRefine(crossRules)
-export type GuestObservationBody = z.input<typeof guestObservationSchema>
 
 // ─── Flags: implausible values are kept, and say why ─────────────────────────────────────────────
 
@@ -294,9 +295,9 @@ export function observationFlags(o: FlagInput, p: FlagPrediction): ObservationFl
 }
 
 /** A card's session counts for an observation from this long before its start… */
-export const SESSION_TIE_BEFORE_MS = 2 * 3_600_000
+const SESSION_TIE_BEFORE_MS = 2 * 3_600_000
 /** …to this long after its end (guests linger; a host tidies up the record later). */
-export const SESSION_TIE_AFTER_MS = 6 * 3_600_000
+const SESSION_TIE_AFTER_MS = 6 * 3_600_000
 
 /** Whether an observation made at `at` may be tied to this session of this flight. */
 export function sessionTie(session: { flightId: number, startsAt: Date, durationMinutes: number, status: string } | null, flightId: number, at: Date): FlagInput['session'] {
@@ -321,4 +322,3 @@ export const hostObservationSchema = (unit: 'c' | 'f') => z.object({
   ...fieldShape,
   ...roomReadingSchema(unit).shape,
 }).superRefine(crossRules)
-export type HostObservationBody = z.input<ReturnType<typeof hostObservationSchema>>

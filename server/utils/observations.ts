@@ -11,7 +11,7 @@ import {
 import type { ObservationSaved, OthersSeen, OwnObservation, PourObservations, PredictedForComparison, SessionObservationPours } from '../../shared/types/observations'
 
 /** Entries one device may make across every pour in an hour: a flight of 8 pours, 3 glasses each. */
-export const DEVICE_ENTRIES_PER_HOUR = 24
+const DEVICE_ENTRIES_PER_HOUR = 24
 
 /** One pour of a flight with what the model needs: the product's current measurement and the glass. */
 async function pourContext(venue: Venue, flightId: number, position: number) {
