@@ -28,7 +28,10 @@ export function useObservation(flightId: number, position: number) {
       return { token: c.token, counter, readyAt: fetchedAt + c.waitMs + 250 }
     })()
     solving = p
-    p.catch(() => { if (solving === p) solving = null })
+    p.catch((err) => {
+      if (solving === p) solving = null
+      if (err instanceof Error && /secure/.test(err.message)) loadError.value = err.message
+    })
     return p
   }
 
