@@ -154,8 +154,10 @@ function cardFigures(film: FilmResult): CardFigures {
  * `room` is the air the flight's pours were computed for (the caller passes the same one to the
  * glass model), so what the card says it assumed is what its figures assume.
  */
-export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, room: CardRoomInput, guestName?: string | null, sessionLabel?: string | null }): FlightCard {
+export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInput, publicUrl: string, room: CardRoomInput, guestName?: string | null, sessionLabel?: string | null, sessionId?: number | null }): FlightCard {
   const { venue, flight } = opts
+  // A session's card ties what its guests record on the pour pages to that session (?s=).
+  const tie = opts.sessionId ? `?s=${opts.sessionId}` : ''
   const contrasts = new Map(flightContrasts(flight.pours.map(p => ({ position: p.position, film: p.film }))).map(c => [c.position, c]))
   const pours = flight.pours.map((p) => {
     const contrast = contrasts.get(p.position)
@@ -178,7 +180,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
       contrast: contrast ? [contrast.text, contrast.also].filter(Boolean).join(' ') : null,
       tastingNote: p.tastingNote ?? null,
       allergens: p.product.allergens.map(a => ALLERGEN_LABELS[a]),
-      pourUrl: `${opts.publicUrl}/${p.position}`,
+      pourUrl: `${opts.publicUrl}/${p.position}${tie}`,
     }
   })
   return {
@@ -203,7 +205,7 @@ export function buildFlightCard(opts: { venue: CardVenue, flight: CardFlightInpu
     cautions: cautionLines(venue, { short: true }),
     ruler: CARD_RULER_HINT,
     paper: venueCardPaper(venue),
-    qrUrl: opts.publicUrl,
+    qrUrl: `${opts.publicUrl}${tie}`,
   }
 }
 

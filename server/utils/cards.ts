@@ -33,10 +33,11 @@ export function cardFonts(): Promise<CardFonts> {
  * The card of one flight as staff print it; guest names, session and the room's air come from the
  * caller (the venue's usual air by default). The pours are computed in that same air.
  */
-export async function flightCard(venue: Venue, flightId: number, extra: { guestName?: string | null, sessionLabel?: string | null, room?: CardRoomInput } = {}): Promise<FlightCard> {
+export async function flightCard(venue: Venue, flightId: number, extra: { guestName?: string | null, sessionLabel?: string | null, room?: CardRoomInput, sessionId?: number } = {}): Promise<FlightCard> {
   const room = extra.room ?? venueRoom(venue)
   const view = await flightView(venue, await loadFlight(venue, flightId), room.air)
-  return buildFlightCard({ venue, flight: view, publicUrl: appLink(`/pour/${flightId}`), guestName: extra.guestName, sessionLabel: extra.sessionLabel, room })
+  // A session's cards carry its id in their address (/pour/{flight}?s={session}), so observations made from them are tied to it.
+  return buildFlightCard({ venue, flight: view, publicUrl: appLink(`/pour/${flightId}`), guestName: extra.guestName, sessionLabel: extra.sessionLabel, room, sessionId: extra.sessionId })
 }
 
 /**
@@ -45,7 +46,7 @@ export async function flightCard(venue: Venue, flightId: number, extra: { guestN
  * assume the host's reading of the room for this session, if there is one yet.
  */
 export async function sessionCards(venue: Venue, session: TastingSession, names: boolean): Promise<FlightCard[]> {
-  const base = await flightCard(venue, session.flightId, { sessionLabel: `${formatShortDayWithYear(session.startsAt, venue)}, ${formatTime(session.startsAt, venue)}`, room: sessionRoom(venue, session) })
+  const base = await flightCard(venue, session.flightId, { sessionLabel: `${formatShortDayWithYear(session.startsAt, venue)}, ${formatTime(session.startsAt, venue)}`, room: sessionRoom(venue, session), sessionId: session.id })
   const parties = await useDb().select({ b: tables.bookings, c: tables.checkIns }).from(tables.bookings)
     .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, tables.bookings.id))
     .where(and(eq(tables.bookings.sessionId, session.id), inArray(tables.bookings.state, ['confirmed', 'checked_in'])))

@@ -21,6 +21,13 @@ export const LIMITS = {
   mailPerAddress: { max: 3, windowMs: 3_600_000 },
   /** Tries of one-time links (reset, invitation, address check) from one client. */
   linkPerClient: { max: 20, windowMs: 3_600_000 },
+  /**
+   * Guests' observations from one client address: a full room of guests on the venue's one Wi-Fi
+   * (40 seats × 6 pours) shares an address, so the bound sits above that.
+   */
+  observationPerClient: { max: 240, windowMs: 3_600_000 },
+  /** Bot-check challenges fetched from one client address (each pour page asks for one; a retry for another). */
+  challengePerClient: { max: 600, windowMs: 3_600_000 },
 } as const satisfies Record<string, Budget>
 
 /** Spends one use of the budget; false (and nothing spent) when it is used up. */

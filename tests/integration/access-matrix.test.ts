@@ -91,6 +91,10 @@ const ROUTES: Row[] = [
   { route: 'GET /api/flights/[id]', path: f => `/api/flights/${f.flightId}`, expect: all(200) },
   { route: 'GET /api/flights/[id]/sessions', path: f => `/api/flights/${f.flightId}/sessions`, expect: all(200) },
   { route: 'GET /api/flights/[id]/pours/[position]', path: f => `/api/flights/${f.flightId}/pours/1`, expect: all(200) },
+  { route: 'GET /api/flights/[id]/pours/[position]/observations', path: f => `/api/flights/${f.flightId}/pours/1/observations`, expect: all(200) },
+  { route: 'GET /api/observations/challenge', path: () => '/api/observations/challenge', expect: all(200) },
+  // Public, but without a solved bot check every caller is refused alike (the field is checked first: 400).
+  { route: 'POST /api/observations', path: () => '/api/observations', body: f => ({ flightId: f.flightId, position: 1, tearsFormed: 'yes', minutesSince: 3, since: 'swirl' }), expect: all(400) },
   { route: 'GET /api/sessions/[id]/availability', path: f => `/api/sessions/${f.session}/availability`, expect: all(200) },
   { route: 'GET /api/science/curve', path: () => '/api/science/curve?tempC=12', expect: all(200) },
   { route: 'GET /api/science/film', path: () => '/api/science/film?abv=12.5&tempC=12', expect: all(200) },
@@ -124,6 +128,9 @@ const ROUTES: Row[] = [
   { route: 'POST /api/sessions/[id]/walk-ins', path: f => `/api/sessions/${f.session}/walk-ins`, body: () => ({ contactName: 'Matrix Walk-in', partySize: 1, idsSeen: 1 }), expect: only({ manager: 409 }) },
   // The room's air for a session: the demo host does not run the matrix session (403); a manager passes the guard and meets the day rule (409).
   { route: 'PUT /api/sessions/[id]/room-reading', path: f => `/api/sessions/${f.session}/room-reading`, body: () => ({ relativeHumidityPct: 55, airTempC: 21 }), expect: only({ manager: 409 }) },
+  // Observations of a session: the demo host does not run the matrix session (403); a manager may, but the matrix session is days ahead (409 on recording).
+  { route: 'GET /api/sessions/[id]/observations', path: f => `/api/sessions/${f.session}/observations`, expect: only({ manager: 200 }) },
+  { route: 'POST /api/sessions/[id]/observations', path: f => `/api/sessions/${f.session}/observations`, body: () => ({ position: 1, tearsFormed: 'yes', minutesSince: 3, since: 'swirl', relativeHumidityPct: 55, airTempC: 21 }), expect: only({ manager: 409 }) },
   { route: 'GET /api/sessions/[id]/cards', path: f => `/api/sessions/${f.session}/cards`, expect: only({ manager: 200 }) },
   // The matrix session has no paid party of its own, so the job is refused as empty (409).
   { route: 'POST /api/sessions/[id]/card-jobs', path: f => `/api/sessions/${f.session}/card-jobs`, body: () => ({ paper: 'a5', names: false }), expect: only({ manager: 409 }) },

@@ -4,6 +4,7 @@ import { Client } from '../support/http'
 import { signedIn } from '../support/people'
 import { inspectPdf, pdfRuns, unitBreaks } from '../support/pdf'
 import { SHOTS_DIR } from '../support/browser'
+import { bookAndPay, demoFlightId, newGuest, newSession } from '../support/booking'
 
 /** Invented products for this test's flight (no real brand). */
 const INVENTED = [
@@ -61,6 +62,17 @@ describe('card data', () => {
     expect(card.pours[4].contrast).toMatch(/^Its 110\sg\/L of sugar slows everything: .* \(\d[\d.]*–\d[\d.]*\smm\/s\)/)
     // A US venue prints on half letter by default (shared/paper.ts).
     expect(card.paper).toBe('half-letter')
+  })
+
+  it('a session\'s cards open the pour pages with the session in the address; the flight\'s own card keeps none', async () => {
+    const demo = await demoFlightId()
+    const { id } = await newSession(manager, { seats: 4 })
+    await bookAndPay(await newGuest('card-session'), id, 1)
+    const { status, body } = await manager.get(`/api/sessions/${id}/cards`)
+    expect(status).toBe(200)
+    expect(body.cards[0].qrUrl).toBe(`${inject('appUrl')}/pour/${demo}?s=${id}`)
+    expect(body.cards[0].pours.map((p: { pourUrl: string }) => p.pourUrl)).toEqual(body.cards[0].pours.map((p: { position: number }) => `${inject('appUrl')}/pour/${demo}/${p.position}?s=${id}`))
+    expect((await manager.get(`/api/flights/${demo}/card`)).body.qrUrl).toBe(`${inject('appUrl')}/pour/${demo}`)
   })
 
   it('counts standard drinks under the venue\'s definition: UK units of 8 g', async () => {

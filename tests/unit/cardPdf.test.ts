@@ -21,14 +21,14 @@ const INVENTED = [
   ['Unit Red', 'still_wine', 14, 2, 16, 60], ['Unit Fortified', 'fortified', 19.5, 100, 16, 45], ['Unit Gin', 'spirit', 43, 0, 18, 15],
 ] as const
 
-function card(note: string, intro = 'Six pours along the **shore**: take _your_ time.', room: CardRoomInput = { air: DEFAULT_ROOM_AIR, source: 'venue', readAt: null }) {
+function card(note: string, intro = 'Six pours along the **shore**: take _your_ time.', room: CardRoomInput = { air: DEFAULT_ROOM_AIR, source: 'venue', readAt: null }, sessionId?: number) {
   const pours = INVENTED.map(([name, kind, abv, sugar, temp, ml], i) => {
     const film = computeFilm({ abvPctVol: abv, tempC: temp, sugarGL: sugar, wallAngleDeg: glass.wallAngleDeg, room: room.air })
     const g = ethanolGrams(ml, abv)
     return { position: i + 1, product: { name, kind, producer: 'Unit Cellars', vintageOrBatch: '2025', colour: null, allergens: ['sulfites' as const] }, abvPctVol: abv, residualSugarGL: sugar, volumeMl: ml, servingTempC: temp, glass, ethanolGrams: g, standardDrinks: g / 14, filmActivityIndex: film.filmActivityIndex, film, tastingNote: renderNote(note) }
   })
   const venue = { name: 'Unit Tasting Room', address: '1 Unit Lane', cautions: 'Please do not drive after your tasting.\nYou must be of legal drinking age.', legalAge: 21, volumeUnit: 'ml' as const, temperatureUnit: 'c' as const, standardDrinkKind: 'us', standardDrinkGrams: 14, timeZone: 'UTC', country: 'PT', cardPaper: null }
-  return buildFlightCard({ venue, flight: { id: 1, name: 'Unit flight', version: 1, summary: 'Six pours', pours, totals: flightTotals(pours, 14), intro: renderNote(intro) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'A Guest', room })
+  return buildFlightCard({ venue, flight: { id: 1, name: 'Unit flight', version: 1, summary: 'Six pours', pours, totals: flightTotals(pours, 14), intro: renderNote(intro) }, publicUrl: 'http://localhost:3000/pour/1', guestName: 'A Guest', room, sessionId })
 }
 
 /** A note as long as a venue's usual one: a sentence and a two-item list. */
@@ -108,6 +108,21 @@ describe('the card PDF with notes', () => {
     execFileSync('pdftoppm', ['-png', '-r', '200', '-singlefile', resolve(dir, 'card.pdf'), resolve(dir, 'page')])
     const png = PNG.sync.read(readFileSync(resolve(dir, 'page.png')))
     expect(jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data).toBe('http://localhost:3000/pour/1')
+  }, 30_000)
+
+  it('a session\'s card carries its session in the QR code\'s address and in every pour\'s', async () => {
+    const { execFileSync } = await import('node:child_process')
+    const { mkdtempSync, writeFileSync, readFileSync } = await import('node:fs')
+    const { PNG } = await import('pngjs')
+    const jsQR = (await import('jsqr')).default
+    const withSession = card('**Pear**.', undefined, undefined, 42)
+    expect(withSession.qrUrl).toBe('http://localhost:3000/pour/1?s=42')
+    expect(withSession.pours.map(p => p.pourUrl)).toEqual(withSession.pours.map(p => `http://localhost:3000/pour/1/${p.position}?s=42`))
+    const dir = mkdtempSync(resolve((await import('node:os')).tmpdir(), 'larmoir-qr-'))
+    writeFileSync(resolve(dir, 'card.pdf'), await renderCardsPdf([withSession], { paper: 'a5', fonts }))
+    execFileSync('pdftoppm', ['-png', '-r', '200', '-singlefile', resolve(dir, 'card.pdf'), resolve(dir, 'page')])
+    const png = PNG.sync.read(readFileSync(resolve(dir, 'page.png')))
+    expect(jsQR(new Uint8ClampedArray(png.data), png.width, png.height)?.data).toBe('http://localhost:3000/pour/1?s=42')
   }, 30_000)
 
   it('prints a millimetre scale whose marks are 10 mm apart on paper', async () => {
