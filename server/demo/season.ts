@@ -8,7 +8,7 @@
 import { DateTime } from 'luxon'
 import { computeFilm, normalDraw, seededRandom, type DrinkKind, type RoomAir } from '../../shared/science'
 import type { ModelParameters } from '../../shared/science/calibration'
-import { TEAR_COUNT_BINS, TEAR_COUNTS, TEAR_SPEED_BINS_MM_S, TEAR_SPEEDS, type TearCount, type TearSpeed, type TearsFormed } from '../../shared/observations'
+import { ENTRIES_PER_DEVICE_POUR_SESSION, TEAR_COUNT_BINS, TEAR_COUNTS, TEAR_SPEED_BINS_MM_S, TEAR_SPEEDS, observationFlags, type ObservationFlag, type TearCount, type TearSpeed, type TearsFormed } from '../../shared/observations'
 import { holidayOn } from './holidays'
 
 const DEMO_SEASON_SEED = 20_260_902
@@ -67,7 +67,7 @@ export interface SeasonObservation {
   since: 'pour' | 'swirl'
   room: RoomAir
   roomSource: 'host' | 'session'
-  flags: string[]
+  flags: ObservationFlag[]
   recordedAt: Date
 }
 
@@ -151,15 +151,16 @@ export function planSeason(sessions: SeasonSession[], pours: SeasonPour[]): Seas
     const i = Math.floor(random() * sessions.length)
     const p = pours[Math.floor(random() * pours.length)]!
     const o = read(i, sessions[i]!, p, 'guest', hex64(random))
-    out.push({ ...o, bandHeightMm: 40 + Math.round(random() * 30), noClearBand: false, tearsFormed: 'no', tearCount: null, tearSpeed: null, flags: ['band_but_no_tears'] })
+    out.push({ ...o, bandHeightMm: 40 + Math.round(random() * 30), noClearBand: false, tearsFormed: 'no', tearCount: null, tearSpeed: null })
   }
-  // One device floods the strongest pour of one session with the same far-off reading.
+  // One device floods the strongest pour of one session with the same far-off reading, as often as the route lets it.
   const floodSession = Math.floor(sessions.length / 2)
   const floodPour = [...pours].sort((a, b) => b.abvPctVol - a.abvPctVol)[0]!
   const floodDevice = hex64(random)
-  for (let k = 0; k < 14; k++) {
+  for (let k = 0; k < ENTRIES_PER_DEVICE_POUR_SESSION; k++) {
     const o = read(floodSession, sessions[floodSession]!, floodPour, 'guest', floodDevice)
     out.push({ ...o, bandHeightMm: 28, noClearBand: false, tearsFormed: 'yes', tearSpeed: 'fast', recordedAt: new Date(o.recordedAt.getTime() + k * 20_000) })
   }
-  return out
+  // Flags by the same rules the routes apply (observationFlags), against the pour's prediction in that room.
+  return out.map(o => ({ ...o, flags: observationFlags({ ...o, residualSugarGL: o.pour.residualSugarGL, session: 'matched' }, truthOf(o.pour, o.room)) }))
 }

@@ -2,7 +2,7 @@ import { and, desc, eq, gte, lt, type SQL } from 'drizzle-orm'
 import { DateTime } from 'luxon'
 import type { Venue } from '../db/schema/venues'
 import type { Observation } from '../db/schema/observations'
-import { compareObservation, TEAR_SPEEDS, type TearSpeed } from '../../shared/observations'
+import { compareObservation, OBSERVATION_FLAG_LABELS, TEAR_SPEEDS, type ObservationFlag, type TearSpeed } from '../../shared/observations'
 import { calibrate, type CalibrationResult, type GroupCalibration } from '../../shared/science/calibration'
 import { drinkKindOf } from '../../shared/pours'
 import type { ObservationFilter } from '../../shared/schemas/observationAnalysis'
@@ -10,13 +10,7 @@ import type { FitRow } from './calibration'
 import type { AgreementStats, CalibrationPanelRow, ChartProduct, ObservationRow, ObservationSummary, RangeView } from '../../shared/types/observationAnalysis'
 
 /** The flags' words (codes the capture side writes); an unknown code is spelt out from itself. */
-const FLAG_WORDS: Record<string, string> = {
-  device_flood: 'many entries from one device for this pour',
-  band_but_no_tears: 'a band read although no tears formed',
-  band_too_soon: 'a band read within a minute of pouring',
-  tears_without_alcohol: 'tears reported on a pour the model gives none',
-}
-const flagWords = (code: string) => FLAG_WORDS[code] ?? code.replaceAll('_', ' ')
+const flagWords = (code: string) => OBSERVATION_FLAG_LABELS[code as ObservationFlag] ?? code.replaceAll('_', ' ')
 
 /**
  * A band reading is far outside when it misses its range by more than the range's own width (and

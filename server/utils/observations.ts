@@ -24,7 +24,9 @@ async function pourContext(venue: Venue, flightId: number, position: number) {
   if (!row) notFound('This flight has no such pour.')
   const product = (await loadProducts(venue.id, { ids: [row.pour.productId] }))[0]
   if (!product) notFound('This pour’s product is gone.')
-  return { ...row, product }
+  // The glass's calibration at this venue, as the pour page uses it, so the comparison shows the page's ranges.
+  const calibration = (await appliedCalibrations(venue, [row.glass.id])).get(row.glass.id) ?? null
+  return { ...row, product, calibration }
 }
 type PourContext = Awaited<ReturnType<typeof pourContext>>
 
@@ -36,6 +38,7 @@ function predictionFor(venue: Venue, ctx: PourContext, numbers: { abvPctVol: num
     wallAngleDeg: ctx.glass.wallAngleDeg,
     bowlDiameterMm: ctx.glass.bowlDiameterMm,
     kind: drinkKindOf(ctx.product.kind),
+    calibration: ctx.calibration,
   }, venue, room).film.predictions
 }
 

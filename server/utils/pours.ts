@@ -47,7 +47,7 @@ function filmFor(p: PourNumbers, room: RoomAir): FilmResult {
   const pourVolumeMl = Math.min(500, Math.max(5, p.volumeMl))
   const calibration = p.calibration ?? null
   const c = calibration
-  const calibrationKey = c ? `${c.parameters.exchangeFactor},${c.parameters.massTransferFactor},${c.sdLn.exchangeFactor},${c.sdLn.massTransferFactor},${c.observations}` : ''
+  const calibrationKey = c ? `${c.parameters.exchangeFactor},${c.parameters.massTransferFactor},${c.sdLn.exchangeFactor},${c.sdLn.massTransferFactor},${c.correlation ?? ''},${c.observations}` : ''
   const key = `${abvPctVol}|${tempC}|${sugarGL}|${wallAngleDeg ?? ''}|${bowlDiameterMm ?? ''}|${pourVolumeMl}|${kind}|${room.relativeHumidityPct}|${room.airTempC}|${calibrationKey}`
   let film = filmCache.get(key)
   if (!film) {
