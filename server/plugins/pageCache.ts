@@ -8,12 +8,15 @@ import type { H3Event } from 'h3'
  *
  * Cache-Control: a page from the cache says `no-cache` (RFC 9111 §5.2.2.4: a browser or a shared
  * cache may keep it but must ask again before each use; the ETag makes that a 304) and
- * `Vary: Cookie`; every other page says `private, no-store` (RFC 9111 §5.2.2.5, §5.2.2.7), so no
- * shared cache ever keeps a page rendered for someone signed in. A page that sets its own
+ * `Vary: Cookie, Accept-Encoding` (it is sent gzipped, made once, to whoever accepts gzip); every
+ * other page says `private, no-store` (RFC 9111 §5.2.2.5, §5.2.2.7), so no shared cache ever keeps
+ * a page rendered for someone signed in. A page that sets its own
  * Cache-Control keeps it and is not cached.
  */
 const FROM_CACHE = 'no-cache'
 const NOT_FROM_CACHE = 'private, no-store'
+/** A page differs by who is signed in, and a cached one comes gzipped to those who accept it. */
+const VARY = 'Cookie, Accept-Encoding'
 /** How long a request waits for another request's render of the same page before rendering itself. */
 const WAIT_FOR_RENDER_MS = 5_000
 
@@ -44,16 +47,19 @@ export default defineNitroPlugin((nitro) => {
       return
     }
     event.context.pageCache = { key, hit: true, generation: page.generation } satisfies PageCacheState
-    const fresh = getRequestHeader(event, 'if-none-match') === page.etag
+    const gzip = /\bgzip\b/.test(getRequestHeader(event, 'accept-encoding') ?? '')
+    const etag = gzip ? page.gzippedEtag : page.etag
+    const fresh = getRequestHeader(event, 'if-none-match') === etag
     ctx.response = {
-      body: fresh ? '' : page.body,
+      body: fresh ? '' : gzip ? page.gzipped : page.body,
       statusCode: fresh ? 304 : 200,
       headers: {
         'content-type': 'text/html;charset=utf-8',
+        ...(gzip ? { 'content-encoding': 'gzip' } : {}),
         'content-security-policy': page.csp,
         'cache-control': FROM_CACHE,
-        'vary': 'Cookie',
-        'etag': page.etag,
+        'vary': VARY,
+        'etag': etag,
         'age': String(Math.floor((Date.now() - page.storedAt) / 1000)),
         'x-page-cache': 'hit',
       },
@@ -71,7 +77,7 @@ export default defineNitroPlugin((nitro) => {
       ? storePage(state.key, response.body, csp, state.generation)
       : null
     response.headers ??= {}
-    response.headers.vary = 'Cookie'
+    response.headers.vary = VARY
     if (stored) {
       Object.assign(response.headers, { 'cache-control': FROM_CACHE, 'etag': stored.etag, 'x-page-cache': 'miss' })
     }

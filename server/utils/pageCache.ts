@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto'
+import { gzipSync } from 'node:zlib'
 import type { H3Event } from 'h3'
 
 /**
@@ -33,7 +34,8 @@ const PUBLIC_PAGES = [
   /^\/articles$/, /^\/articles\/[a-z0-9-]+$/,
 ]
 
-export interface CachedPage { body: Buffer, csp: string, etag: string, storedAt: number, generation: number }
+/** A stored page: its bytes as rendered and gzipped once (most visitors accept gzip), with an ETag for each. */
+export interface CachedPage { body: Buffer, gzipped: Buffer, csp: string, etag: string, gzippedEtag: string, storedAt: number, generation: number }
 
 const pages = new Map<string, CachedPage>()
 let bytes = 0
@@ -75,9 +77,10 @@ export function storePage(key: string, body: string, csp: string, renderedIn: nu
   drop(key)
   // Kept as bytes: a hit is written out as it is, not encoded again.
   const bytesOf = Buffer.from(body, 'utf8')
-  const page: CachedPage = { body: bytesOf, csp, etag: `"${createHash('sha1').update(bytesOf).digest('base64url')}"`, storedAt: Date.now(), generation }
+  const tag = createHash('sha1').update(bytesOf).digest('base64url')
+  const page: CachedPage = { body: bytesOf, gzipped: gzipSync(bytesOf), csp, etag: `"${tag}"`, gzippedEtag: `"${tag}-gz"`, storedAt: Date.now(), generation }
   pages.set(key, page)
-  bytes += bytesOf.length
+  bytes += bytesOf.length + page.gzipped.length
   for (const [k] of pages) {
     if (pages.size <= MAX_ENTRIES && bytes <= MAX_BYTES) break
     drop(k)
@@ -88,7 +91,7 @@ export function storePage(key: string, body: string, csp: string, renderedIn: nu
 function drop(key: string) {
   const page = pages.get(key)
   if (!page) return
-  bytes -= page.body.length
+  bytes -= page.body.length + page.gzipped.length
   pages.delete(key)
 }
 

@@ -1,5 +1,5 @@
 // The booking rules, part 2: holding seats and opening the Checkout Session for them.
-import { and, desc, eq, gt, sql } from 'drizzle-orm'
+import { and, desc, eq, gt } from 'drizzle-orm'
 import { DateTime } from 'luxon'
 import type { Booking } from '../../db/schema/bookings'
 import type { TastingSession } from '../../db/schema/sessions'
@@ -39,21 +39,27 @@ export interface BookingHold { booking: Booking, checkoutUrl: string, resumed: b
  * waits for: under it the session's state and the seats are read, the run-out holds released
  * and the hold inserted, so that the lock is held for as few round trips as possible.
  *
- * A request the seats cannot take is refused before any lock, from a plain read: a refusal needs
- * no lock to be right (it writes nothing), and the seats it saw were taken an instant before.
- * Whatever that read says, a hold is only ever inserted after the count under the lock.
+ * Requests for one session take their turn in this process first (`inSessionQueue`), so those
+ * waiting for its lock hold no database connection. A request the seats cannot take is refused
+ * before any lock, from a plain read: a refusal needs no lock to be right (it writes nothing), and
+ * the seats it saw were taken an instant before. Whatever that read says, a hold is only ever
+ * inserted after the count under the lock.
  */
 export async function createBookingHold(user: CurrentUser, input: BookingInput): Promise<BookingHold> {
-  const venue = await getVenue()
   const db = useDb()
   const { booking: cfg } = useRuntimeConfig()
-  const [account] = await db.select({ dateOfBirth: tables.users.dateOfBirth, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id))
+  // Independent reads at once: each round trip counts when the database is busy.
+  const [venue, [account], [found]] = await Promise.all([
+    getVenue(),
+    db.select({ dateOfBirth: tables.users.dateOfBirth, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)),
+    db.select().from(tables.tastingSessions).where(eq(tables.tastingSessions.id, input.sessionId)),
+  ])
   if (!account?.emailVerifiedAt) addressNotConfirmed(user)
   if (account?.dateOfBirth && account.dateOfBirth !== input.dateOfBirth) {
     invalidFields({ dateOfBirth: `This is not the date of birth on your account. If your account has it wrong, please contact ${venueContactText(venue)}.` })
   }
-  const [pre] = await db.select().from(tables.tastingSessions)
-    .where(and(eq(tables.tastingSessions.id, input.sessionId), eq(tables.tastingSessions.venueId, venue.id)))
+  // Another venue's session is "no such session", like a missing one.
+  const pre = found?.venueId === venue.id ? found : undefined
   if (!pre) invalidFields({ sessionId: 'No such session.' })
   const sessionDay = DateTime.fromJSDate(pre.startsAt, { zone: venue.timeZone }).toISODate()!
   if (ageOn(input.dateOfBirth, sessionDay) < venue.legalAge) {
@@ -65,19 +71,21 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
   const b = tables.bookings
   const liveOwnHold = and(eq(b.sessionId, pre.id), eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now))
   // Refusals that need no lock: a guest with a live hold here is answered with it below instead.
-  const [probe] = await db.select({ id: b.id }).from(b).where(liveOwnHold).limit(1)
+  const [[probe], counts] = await Promise.all([db.select({ id: b.id }).from(b).where(liveOwnHold).limit(1), loadSeatCounts(db, [pre], now)])
   if (!probe) {
     refuseUnbookable(pre, now)
-    const left = (await loadSeatCounts(db, [pre], now)).get(pre.id)!.seatsLeft
+    const left = counts.get(pre.id)!.seatsLeft
     if (input.partySize > left) refuseSeats(left)
   }
 
-  const held = await bookingTransaction(async (tx) => {
+  const held = await inSessionQueue(pre.id, () => bookingTransaction(async (tx) => {
     // The guest's own row first: their requests in parallel queue here, and the unpaid holds they
     // already have are counted one request at a time.
     const [me] = await tx.select({ id: tables.users.id, email: tables.users.email, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)).for('update')
     if (!me?.emailVerifiedAt) addressNotConfirmed(user)
-    const [own] = await tx.select().from(b).where(liveOwnHold).orderBy(desc(b.id)).limit(1).for('update')
+    // The guest's live holds, all sessions: the one here (if any) is resumed, the rest are counted.
+    const live = await tx.select().from(b).where(and(eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now))).orderBy(desc(b.id)).for('update')
+    const own = live.find(h => h.sessionId === pre.id)
     if (own) {
       if (own.partySize !== input.partySize) {
         conflict(
@@ -87,10 +95,9 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
       }
       return { bookingId: own.id, resumed: true, staleCheckouts: [] as string[] }
     }
-    const [{ live, seats } = { live: 0, seats: 0 }] = await tx.select({ live: sql<number>`count(*)`.mapWith(Number), seats: sql<number>`coalesce(sum(${b.partySize}), 0)`.mapWith(Number) }).from(b)
-      .where(and(eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
-    if (live >= UNPAID_HOLDS_PER_GUEST) {
-      conflict(`You already have ${live} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
+    const seats = live.reduce((n, h) => n + h.partySize, 0)
+    if (live.length >= UNPAID_HOLDS_PER_GUEST) {
+      conflict(`You already have ${live.length} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
     }
     if (seats + input.partySize > UNPAID_SEATS_PER_GUEST) {
       conflict(`You already hold ${seats} unpaid seat${seats === 1 ? '' : 's'}; together with these that would be more than ${UNPAID_SEATS_PER_GUEST}. Finish paying for them, or give some back, first.`)
@@ -109,14 +116,13 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     }
     const [row] = await tx.insert(b).values(values).$returningId()
     return { bookingId: row!.id, resumed: false, staleCheckouts }
-  })
+  }))
   // Read back after the commit, outside the locks.
-  const [booking] = await db.select().from(b).where(eq(b.id, held.bookingId))
+  const [[booking], flightName] = await Promise.all([db.select().from(b).where(eq(b.id, held.bookingId)), flightNameOf(pre.flightId)])
   if (!booking) throw paymentUnavailable()
   void expireCheckoutSessions(held.staleCheckouts)
   if (held.resumed) return { booking, checkoutUrl: await paymentPageOf(booking), resumed: true }
 
-  const flightName = await flightNameOf(pre.flightId)
   if (booking.amountMinor === 0) {
     // A free session needs no payment: the hold is confirmed at once.
     await confirmBookingPaid(booking.id, { amountPaid: 0, paymentIntentId: null })

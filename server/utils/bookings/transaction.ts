@@ -38,6 +38,22 @@ export async function bookingTransaction<T>(fn: (tx: Tx) => Promise<T>): Promise
   }
 }
 
+/**
+ * Runs `fn` after every earlier call for the same session in this process has finished: requests
+ * that will wait for one session's row lock wait here instead, without holding a database
+ * connection, so that a rush on one session cannot take the pool from everything else. It orders
+ * work only; the row lock under it is what keeps the seats right, across processes too.
+ */
+export function inSessionQueue<T>(sessionId: number, fn: () => Promise<T>): Promise<T> {
+  const before = sessionQueues.get(sessionId) ?? Promise.resolve()
+  const run = before.then(fn, fn)
+  const tail = run.then(() => {}, () => {})
+  sessionQueues.set(sessionId, tail)
+  void tail.then(() => { if (sessionQueues.get(sessionId) === tail) sessionQueues.delete(sessionId) })
+  return run
+}
+const sessionQueues = new Map<number, Promise<void>>()
+
 export async function lockSessionRow(tx: Tx, sessionId: number): Promise<TastingSession> {
   const [s] = await tx.select().from(tables.tastingSessions).where(eq(tables.tastingSessions.id, sessionId)).for('update')
   if (!s) notFound('No such session.')
