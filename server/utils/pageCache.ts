@@ -133,7 +133,7 @@ export function cachedPublicData<T>(key: string, maxAgeMs: number, build: () => 
 }
 
 /** Something a public page shows has changed: no stored page is served again. */
-export function invalidatePages(): void {
+function invalidatePages(): void {
   generation++
   pages.clear()
   publicData.clear()
