@@ -54,8 +54,9 @@ export default defineNuxtConfig({
   },
   srcDir: '.',
   routeRules: {
-    // Security headers on every response; pages get their content security policy (with a nonce)
-    // from server/plugins/security.ts, everything else this one: nothing may run or frame it.
+    // Security headers on every response; pages get their content security policy (with the hashes
+    // of Nuxt's inline scripts) from server/plugins/security.ts, everything else this one: nothing
+    // may run or frame it. Public pages are cached whole by server/plugins/pageCache.ts.
     '/**': {
       headers: {
         'x-content-type-options': 'nosniff',
@@ -67,11 +68,6 @@ export default defineNuxtConfig({
     },
     // The host's day reads the guest's QR code with the tablet's camera: this page alone may use it.
     '/host': { headers: { 'permissions-policy': 'camera=(self), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()' } },
-    // The public list of flights is the same for everyone and read on every visit to /flights; it is
-    // kept for at most 5 s (no stale-while-revalidate), so seats left there lag a booking by 5 s at
-    // most. A flight's own sessions and the booking form read seats live, and booking is decided in
-    // the database (server/utils/bookings/), never from this list.
-    '/api/flights/published': { cache: { maxAge: 5, swr: false } },
     // The card PDFs open in the browser's own viewer, which a default-src 'none' would blank.
     '/cards/flights/*/card.pdf': { headers: { 'content-security-policy': 'frame-ancestors \'self\'' } },
     '/cards/jobs/*/cards.pdf': { headers: { 'content-security-policy': 'frame-ancestors \'self\'' } },

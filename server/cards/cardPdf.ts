@@ -19,8 +19,9 @@ import { CARD_FIT_STEPS, CARD_GLASS_MM, CARD_MARGIN_PT, CARD_TYPE_PT, type CardF
 import { CARD_PAPER_POINTS, type CardPaper } from '../../shared/paper'
 import type { FlightCard } from '../../shared/types/cards'
 import type { TextBlock, TextRun } from '../../shared/types/content'
-import { FACES, drawRich, layoutRich, type RichLayout } from './pdfText'
+import { FACES, drawRich, layoutRich, shareTextMemo, type RichLayout } from './pdfText'
 import { sfntOf } from './woff'
+import { sharedFont } from './fontCache'
 import { drawCardGlass, cardGlassWidth } from './cardGlass'
 import { cardAllergens, cardFacts, leadSplit } from '../../shared/cardText'
 
@@ -44,11 +45,14 @@ const GLASS_GAP = 6
 export async function renderCardsPdf(cards: FlightCard[], opts: { paper: CardPaper, fonts: CardFonts, title?: string, onCard?: (done: number, total: number) => void }): Promise<Buffer> {
   const { width, height } = CARD_PAPER_POINTS[opts.paper]
   const doc = new PDFDocument({ size: [width, height], margin: MARGIN, autoFirstPage: false, info: { Title: opts.title ?? cards[0]?.flight.name ?? 'Flight cards', Creator: 'Larmoir' } })
-  // The shipped .woff files, unwrapped once per process (server/cards/woff.ts).
-  doc.registerFont(FACES.regular, sfntOf(opts.fonts.regular))
-  doc.registerFont(FACES.bold, sfntOf(opts.fonts.semibold))
-  doc.registerFont(FACES.italic, sfntOf(opts.fonts.italic))
-  doc.registerFont(FACES.boldItalic, sfntOf(opts.fonts.semiboldItalic))
+  // The shipped .woff files, unwrapped (server/cards/woff.ts) and parsed once per process, their
+  // layouts and subsets shared by every document (server/cards/fontCache.ts).
+  const face = (woff: Buffer) => sharedFont(sfntOf(woff)) as unknown as Buffer
+  doc.registerFont(FACES.regular, face(opts.fonts.regular))
+  doc.registerFont(FACES.bold, face(opts.fonts.semibold))
+  doc.registerFont(FACES.italic, face(opts.fonts.italic))
+  doc.registerFont(FACES.boldItalic, face(opts.fonts.semiboldItalic))
+  shareTextMemo(doc, sfntOf(opts.fonts.regular))
   const chunks: Buffer[] = []
   doc.on('data', (c: Buffer) => chunks.push(c))
   const done = new Promise<Buffer>(resolve => doc.on('end', () => resolve(Buffer.concat(chunks))))

@@ -65,10 +65,47 @@ export function compactLists(blocks: TextBlock[]): TextBlock[] {
   return out
 }
 
+/**
+ * What the layout has measured and laid out with one set of fonts, kept across documents: a card
+ * lays out each piece several times (fitting, then drawing), a session's cards share every piece
+ * but the guest's name, and the same card is printed again and again. Both are pure functions of
+ * the fonts and their inputs, so a kept answer is the answer. Bounded: cleared when full.
+ */
+interface TextMemo { widths: Map<string, number>, layouts: Map<string, RichLayout> }
+const MEMO_MAX = 20_000
+const memoOfFonts = new WeakMap<object, TextMemo>()
+const memoOfDoc = new WeakMap<PDFKit.PDFDocument, TextMemo>()
+
+/** Lets `layoutRich` on `doc` reuse what was measured before with the same fonts (`fonts`: any object that stands for them). */
+export function shareTextMemo(doc: PDFKit.PDFDocument, fonts: object): void {
+  let memo = memoOfFonts.get(fonts)
+  if (!memo) {
+    memo = { widths: new Map(), layouts: new Map() }
+    memoOfFonts.set(fonts, memo)
+  }
+  memoOfDoc.set(doc, memo)
+}
+
+function remember<V>(map: Map<string, V>, key: string, make: () => V): V {
+  let value = map.get(key)
+  if (value === undefined) {
+    value = make()
+    if (map.size >= MEMO_MAX) map.clear()
+    map.set(key, value)
+  }
+  return value
+}
+
 export function layoutRich(doc: PDFKit.PDFDocument, source: TextBlock[], width: number, style: RichStyle): RichLayout {
+  const memo = memoOfDoc.get(doc)
+  if (!memo) return layoutUncached(doc, source, width, style, (font, text) => doc.font(font).fontSize(style.size).widthOfString(text))
+  const measure = (font: string, text: string) => remember(memo.widths, `${font}\u0000${style.size}\u0000${text}`, () => doc.font(font).fontSize(style.size).widthOfString(text))
+  return remember(memo.layouts, JSON.stringify([source, width, style]), () => layoutUncached(doc, source, width, style, measure))
+}
+
+function layoutUncached(doc: PDFKit.PDFDocument, source: TextBlock[], width: number, style: RichStyle, measure: (font: string, text: string) => number): RichLayout {
   const blocks = style.compactLists ? compactLists(source) : source
   const lineH = style.size * style.leading
-  const measure = (font: string, text: string) => doc.font(font).fontSize(style.size).widthOfString(text)
   const pieces: Piece[] = []
   let y = 0
   blocks.forEach((block, bi) => {

@@ -15,6 +15,8 @@ const ORPHAN_HOLD_MS = 2 * 60_000
 /** One pass of the booking housekeeping; safe to run from several processes at once. */
 export async function sweepBookings(): Promise<{ released: number, refunds: number, reminders: number }> {
   const released = await releaseRunOutHolds() + await releaseOrphanHolds()
+  // Seats came back: the public pages show them within the page cache's lag.
+  if (released) seatsChanged()
   return { released, refunds: await retryRefunds(), reminders: await queueReminders() }
 }
 

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import { and, asc, eq, inArray } from 'drizzle-orm'
-import { renderCardsPdf, type CardFonts } from '../cards/cardPdf'
+import type { CardFonts } from '../cards/cardPdf'
+import { cachedCardsPdf } from '../cards/pdfCache'
 import { buildFlightCard, type CardRoomInput } from '../../shared/cards'
 import type { CardPaper } from '../../shared/paper'
 import type { FlightCard } from '../../shared/types/cards'
@@ -103,7 +104,7 @@ export function startCardJob(ownerId: number, cards: FlightCard[], paper: CardPa
   jobs.set(job.id, job)
   void (async () => {
     try {
-      job.pdf = await renderCardsPdf(cards, { paper, fonts: await cardFonts(), onCard: (done) => { job.done = done } })
+      job.pdf = await cachedCardsPdf(cards, { paper, fonts: await cardFonts(), onCard: (done) => { job.done = done } })
       job.status = 'done'
     }
     catch (err) {

@@ -8,8 +8,16 @@ import type { BookingState } from '../../shared/bookings'
  * lock it is a read for display; the booking transaction calls it with the session row locked.
  */
 export async function loadSeatCounts(db: Db | Tx, sessions: readonly { id: number, seats: number }[], now: Date): Promise<Map<number, SeatCount>> {
+  const facts = await loadSeatFacts(db, sessions, now)
   const out = new Map<number, SeatCount>()
-  if (!sessions.length) return out
+  for (const s of sessions) out.set(s.id, countSeats(s.seats, facts.get(s.id) ?? []))
+  return out
+}
+
+/** What the seat rule counts, per session: one fact per group of bookings (state, live hold, door outcome, source). */
+export async function loadSeatFacts(db: Db | Tx, sessions: readonly { id: number }[], now: Date): Promise<Map<number, SeatFact[]>> {
+  const facts = new Map<number, SeatFact[]>()
+  if (!sessions.length) return facts
   const b = tables.bookings
   const c = tables.checkIns
   const holdLive = sql<number>`(${b.state} = 'held' and ${b.holdExpiresAt} > ${now})`
@@ -25,12 +33,10 @@ export async function loadSeatCounts(db: Db | Tx, sessions: readonly { id: numbe
     .leftJoin(c, eq(c.bookingId, b.id))
     .where(inArray(b.sessionId, [...new Set(sessions.map(s => s.id))]))
     .groupBy(b.sessionId, b.state, b.source, holdLive, c.outcome)
-  const facts = new Map<number, SeatFact[]>()
   for (const r of rows) {
     const list = facts.get(r.sessionId) ?? []
     list.push({ state: r.state as BookingState, partySize: r.partySize, holdLive: r.holdLive === 1, outcome: r.outcome as DoorOutcome | null, seated: r.seated, walkIn: r.source === 'walk_in' })
     facts.set(r.sessionId, list)
   }
-  for (const s of sessions) out.set(s.id, countSeats(s.seats, facts.get(s.id) ?? []))
-  return out
+  return facts
 }

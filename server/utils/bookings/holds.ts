@@ -1,5 +1,5 @@
 // The booking rules, part 2: holding seats and opening the Checkout Session for them.
-import { and, desc, eq, gt, sql } from 'drizzle-orm'
+import { and, desc, eq, gt } from 'drizzle-orm'
 import { DateTime } from 'luxon'
 import type { Booking } from '../../db/schema/bookings'
 import type { TastingSession } from '../../db/schema/sessions'
@@ -29,25 +29,37 @@ const CHECKOUT_WAIT_MS = 10_000
 export interface BookingHold { booking: Booking, checkoutUrl: string, resumed: boolean }
 
 /**
- * Holds seats and opens a Checkout Session. One transaction locks the session row, releases its
- * run-out holds, counts the seats still taken and inserts the hold; the payment provider is called
- * only after it commits. If that call fails the hold is released and the guest gets a 503.
+ * Holds seats and opens a Checkout Session. The payment provider is called only after the
+ * transaction commits; if that call fails the hold is released and the guest gets a 503.
  *
- * A guest who already holds seats in the session (back from the payment page, a second tap,
- * another tab) is answered with that hold and its payment page, never a second hold: the check
- * runs under the same session lock, so two requests at once cannot both insert.
+ * The transaction locks the guest's own row first, and under that lock alone finds the guest's
+ * live hold in this session (a second request, Back from the payment page, another tab: answered
+ * with that hold, never a second one, since the guest's requests queue on their row) and counts
+ * their unpaid holds. Only then does it lock the session row, which every booking of the session
+ * waits for: under it the session's state and the seats are read, the run-out holds released
+ * and the hold inserted, so that the lock is held for as few round trips as possible.
+ *
+ * Requests for one session take their turn in this process first (`inSessionQueue`), so those
+ * waiting for its lock hold no database connection. A request the seats cannot take is refused
+ * before any lock, from a plain read: a refusal needs no lock to be right (it writes nothing), and
+ * the seats it saw were taken an instant before. Whatever that read says, a hold is only ever
+ * inserted after the count under the lock.
  */
 export async function createBookingHold(user: CurrentUser, input: BookingInput): Promise<BookingHold> {
-  const venue = await getVenue()
   const db = useDb()
   const { booking: cfg } = useRuntimeConfig()
-  const [account] = await db.select({ dateOfBirth: tables.users.dateOfBirth, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id))
+  // Independent reads at once: each round trip counts when the database is busy.
+  const [venue, [account], [found]] = await Promise.all([
+    getVenue(),
+    db.select({ dateOfBirth: tables.users.dateOfBirth, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)),
+    db.select().from(tables.tastingSessions).where(eq(tables.tastingSessions.id, input.sessionId)),
+  ])
   if (!account?.emailVerifiedAt) addressNotConfirmed(user)
   if (account?.dateOfBirth && account.dateOfBirth !== input.dateOfBirth) {
     invalidFields({ dateOfBirth: `This is not the date of birth on your account. If your account has it wrong, please contact ${venueContactText(venue)}.` })
   }
-  const [pre] = await db.select().from(tables.tastingSessions)
-    .where(and(eq(tables.tastingSessions.id, input.sessionId), eq(tables.tastingSessions.venueId, venue.id)))
+  // Another venue's session is "no such session", like a missing one.
+  const pre = found?.venueId === venue.id ? found : undefined
   if (!pre) invalidFields({ sessionId: 'No such session.' })
   const sessionDay = DateTime.fromJSDate(pre.startsAt, { zone: venue.timeZone }).toISODate()!
   if (ageOn(input.dateOfBirth, sessionDay) < venue.legalAge) {
@@ -57,15 +69,23 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
   const now = new Date()
   const holdMs = Math.max(1, Number(cfg.holdMinutes)) * 60_000
   const b = tables.bookings
-  const held = await bookingTransaction(async (tx) => {
+  const liveOwnHold = and(eq(b.sessionId, pre.id), eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now))
+  // Refusals that need no lock: a guest with a live hold here is answered with it below instead.
+  const [[probe], counts] = await Promise.all([db.select({ id: b.id }).from(b).where(liveOwnHold).limit(1), loadSeatCounts(db, [pre], now)])
+  if (!probe) {
+    refuseUnbookable(pre, now)
+    const left = counts.get(pre.id)!.seatsLeft
+    if (input.partySize > left) refuseSeats(left)
+  }
+
+  const held = await inSessionQueue(pre.id, () => bookingTransaction(async (tx) => {
     // The guest's own row first: their requests in parallel queue here, and the unpaid holds they
     // already have are counted one request at a time.
     const [me] = await tx.select({ id: tables.users.id, email: tables.users.email, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)).for('update')
     if (!me?.emailVerifiedAt) addressNotConfirmed(user)
-    const session = await lockSessionRow(tx, input.sessionId)
-    const [own] = await tx.select().from(b)
-      .where(and(eq(b.sessionId, session.id), eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
-      .orderBy(desc(b.id)).limit(1).for('update')
+    // The guest's live holds, all sessions: the one here (if any) is resumed, the rest are counted.
+    const live = await tx.select().from(b).where(and(eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now))).orderBy(desc(b.id)).for('update')
+    const own = live.find(h => h.sessionId === pre.id)
     if (own) {
       if (own.partySize !== input.partySize) {
         conflict(
@@ -73,26 +93,21 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
           { booking: { id: own.id, partySize: own.partySize, checkoutUrl: own.checkoutUrl } },
         )
       }
-      return { booking: own, resumed: true, staleCheckouts: [] as string[] }
+      return { bookingId: own.id, resumed: true, staleCheckouts: [] as string[] }
     }
-    if (session.status === 'cancelled') conflict('This session has been cancelled. Please choose another one.')
-    if (session.status !== 'open') conflict('This session is not taking bookings. Please choose another one.')
-    const closesAt = session.startsAt.getTime() - session.bookingCutoffMinutes * 60_000
-    if (now.getTime() >= closesAt) conflict(`Booking for this session closed ${session.bookingCutoffMinutes} minutes before the start. Please choose another session.`)
-
-    const [{ live, seats } = { live: 0, seats: 0 }] = await tx.select({ live: sql<number>`count(*)`.mapWith(Number), seats: sql<number>`coalesce(sum(${b.partySize}), 0)`.mapWith(Number) }).from(b)
-      .where(and(eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
-    if (live >= UNPAID_HOLDS_PER_GUEST) {
-      conflict(`You already have ${live} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
+    const seats = live.reduce((n, h) => n + h.partySize, 0)
+    if (live.length >= UNPAID_HOLDS_PER_GUEST) {
+      conflict(`You already have ${live.length} bookings waiting for payment. Finish paying for them, or give their seats back, before holding more.`)
     }
     if (seats + input.partySize > UNPAID_SEATS_PER_GUEST) {
       conflict(`You already hold ${seats} unpaid seat${seats === 1 ? '' : 's'}; together with these that would be more than ${UNPAID_SEATS_PER_GUEST}. Finish paying for them, or give some back, first.`)
     }
+    if (!account?.dateOfBirth) await tx.update(tables.users).set({ dateOfBirth: input.dateOfBirth }).where(eq(tables.users.id, user.id))
+
+    const session = await lockSessionRow(tx, input.sessionId)
+    refuseUnbookable(session, now)
     const { count, staleCheckouts } = await lockedSeatCount(tx, session, now)
-    const left = count.seatsLeft
-    if (input.partySize > left) {
-      conflict(left <= 0 ? 'Sorry, this session is now full. Please choose another one.' : `Only ${left} seat${left === 1 ? '' : 's'} left in this session. Choose a smaller party or another session.`, { seatsLeft: left })
-    }
+    if (input.partySize > count.seatsLeft) refuseSeats(count.seatsLeft)
     const values = {
       venueId: venue.id, sessionId: session.id, userId: user.id, reference: newBookingReference(), state: 'held' as const,
       partySize: input.partySize, contactName: input.contactName, contactEmail: me.email, contactPhone: input.contactPhone, notes: input.notes ?? null,
@@ -100,15 +115,14 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
       currency: session.currency, holdExpiresAt: new Date(now.getTime() + holdMs),
     }
     const [row] = await tx.insert(b).values(values).$returningId()
-    if (!account?.dateOfBirth) await tx.update(tables.users).set({ dateOfBirth: input.dateOfBirth }).where(eq(tables.users.id, user.id))
-    const [booking] = await tx.select().from(b).where(eq(b.id, row!.id))
-    return { booking: booking!, resumed: false, staleCheckouts }
-  })
+    return { bookingId: row!.id, resumed: false, staleCheckouts }
+  }))
+  // Read back after the commit, outside the locks.
+  const [[booking], flightName] = await Promise.all([db.select().from(b).where(eq(b.id, held.bookingId)), flightNameOf(pre.flightId)])
+  if (!booking) throw paymentUnavailable()
   void expireCheckoutSessions(held.staleCheckouts)
-  const booking = held.booking
   if (held.resumed) return { booking, checkoutUrl: await paymentPageOf(booking), resumed: true }
 
-  const flightName = await flightNameOf(pre.flightId)
   if (booking.amountMinor === 0) {
     // A free session needs no payment: the hold is confirmed at once.
     await confirmBookingPaid(booking.id, { amountPaid: 0, paymentIntentId: null })
@@ -128,6 +142,18 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     })
     throw paymentUnavailable()
   }
+}
+
+/** 409 for a session that takes no bookings now (checked before the locks, and again under them). */
+function refuseUnbookable(session: TastingSession, now: Date): void {
+  if (session.status === 'cancelled') conflict('This session has been cancelled. Please choose another one.')
+  if (session.status !== 'open') conflict('This session is not taking bookings. Please choose another one.')
+  const closesAt = session.startsAt.getTime() - session.bookingCutoffMinutes * 60_000
+  if (now.getTime() >= closesAt) conflict(`Booking for this session closed ${session.bookingCutoffMinutes} minutes before the start. Please choose another session.`)
+}
+
+function refuseSeats(left: number): never {
+  return conflict(left <= 0 ? 'Sorry, this session is now full. Please choose another one.' : `Only ${left} seat${left === 1 ? '' : 's'} left in this session. Choose a smaller party or another session.`, { seatsLeft: left })
 }
 
 /** 403 for a guest who has not confirmed their address yet: what to do is on the booking page. */

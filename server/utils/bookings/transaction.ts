@@ -4,7 +4,7 @@ import { randomBytes } from 'node:crypto'
 import { and, eq, lte } from 'drizzle-orm'
 import type { Booking } from '../../db/schema/bookings'
 import type { TastingSession } from '../../db/schema/sessions'
-import type { SeatCount } from '../../../shared/seats'
+import { countSeats, type SeatCount } from '../../../shared/seats'
 import {
   BOOKING_STATE_LABELS, BOOKING_TRANSITIONS, REFERENCE_ALPHABET, REFERENCE_LENGTH,
   canTransition, type BookingEvent,
@@ -38,6 +38,22 @@ export async function bookingTransaction<T>(fn: (tx: Tx) => Promise<T>): Promise
   }
 }
 
+/**
+ * Runs `fn` after every earlier call for the same session in this process has finished: requests
+ * that will wait for one session's row lock wait here instead, without holding a database
+ * connection, so that a rush on one session cannot take the pool from everything else. It orders
+ * work only; the row lock under it is what keeps the seats right, across processes too.
+ */
+export function inSessionQueue<T>(sessionId: number, fn: () => Promise<T>): Promise<T> {
+  const before = sessionQueues.get(sessionId) ?? Promise.resolve()
+  const run = before.then(fn, fn)
+  const tail = run.then(() => {}, () => {})
+  sessionQueues.set(sessionId, tail)
+  void tail.then(() => { if (sessionQueues.get(sessionId) === tail) sessionQueues.delete(sessionId) })
+  return run
+}
+const sessionQueues = new Map<number, Promise<void>>()
+
 export async function lockSessionRow(tx: Tx, sessionId: number): Promise<TastingSession> {
   const [s] = await tx.select().from(tables.tastingSessions).where(eq(tables.tastingSessions.id, sessionId)).for('update')
   if (!s) notFound('No such session.')
@@ -56,11 +72,15 @@ async function expireRunOutHolds(tx: Tx, sessionId: number, now: Date): Promise<
  * The seats of a session the caller has locked (`lockSessionRow`), for a decision about them. Its
  * holds whose time ran out are released first: the shared rule gives them no seats, so they must
  * not stay payable as holds either (a payment that still arrives for one takes the late-payment
- * path, which checks the seats again). Then one grouped query and the shared rule
+ * path, which checks the seats again). One grouped query and the shared rule
  * (shared/seats.ts), exactly as every screen counts. Returns the released holds' Checkout Sessions,
  * to close with `expireCheckoutSessions` once the transaction has committed.
  */
 export async function lockedSeatCount(tx: Tx, session: Pick<TastingSession, 'id' | 'seats'>, now = new Date()): Promise<{ count: SeatCount, staleCheckouts: string[] }> {
+  // One query while the lock is held, in the usual case: the release and a second count only when
+  // the facts show a hold that ran out (the shared rule gives it no seat either way).
+  const facts = (await loadSeatFacts(tx, [session], now)).get(session.id) ?? []
+  if (!facts.some(f => f.state === 'held' && !f.holdLive)) return { count: countSeats(session.seats, facts), staleCheckouts: [] }
   const staleCheckouts = await expireRunOutHolds(tx, session.id, now)
   const count = (await loadSeatCounts(tx, [session], now)).get(session.id)!
   return { count, staleCheckouts }
