@@ -209,7 +209,7 @@ async function calibrationPanel(venue: Venue): Promise<ObservationSummary['calib
     // A group that already applied keeps its moment; only newly applied groups are searched for theirs.
     const known = cache?.since ?? new Map<string, string | null>()
     const fresh = fit.result.groups.filter(g => g.status === 'applied' && !known.get(groupKey(g)))
-    const found = fresh.length ? appliedSince(await loadFitRows(venue.id), { groups: fresh }) : new Map<string, string | null>()
+    const found = fresh.length ? appliedSince(await loadFitRows(venue.id), { groups: fresh, modelRuns: 0 }) : new Map<string, string | null>()
     const since = new Map(fit.result.groups.filter(g => g.status === 'applied').map(g => [groupKey(g), known.get(groupKey(g)) ?? found.get(groupKey(g)) ?? null]))
     cache = { version: fit.version, since }
     panelCache.set(venue.id, cache)

@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { signedIn } from '../support/people'
 import type { Client } from '../support/http'
@@ -8,7 +9,8 @@ import { DEMO_PASSWORD } from '../../server/demo/data'
 
 /**
  * A guest records what their glass shows from a session card's pour page on a phone, and sees how
- * it compared; the row arrives with the session and the room reading. The host records one from
+ * it compared; the row arrives with the session and the room reading, and the manager's page hands
+ * it out in its CSV with the comparison. The host records one from
  * the host's day with their own reading of the room.
  */
 const PHONE = { width: 390, height: 844 } // a common phone's CSS viewport, 390 × 844 (common practice, no source)
@@ -72,9 +74,27 @@ describe('recording a glass', () => {
       expect(rows).toHaveLength(1)
       expect(rows[0]).toMatchObject({ source: 'guest', session_id: sessionId, band_height_mm: 7, tears_formed: 'yes', tear_count: '6_to_15', tear_speed: 'steady', minutes_since: 5, since: 'swirl', room_humidity_pct: 66, room_source: 'session', flags: [] })
       expect(Number(rows[0]!.room_air_temp_c)).toBe(23)
+
+      // …and on the manager's screen: the page of what was seen, whose CSV carries this guest's reading
+      // with its session and room, and compares it with the model's range.
+      const staff = await openBrowser({ width: 1280, height: 900 })
+      try {
+        const mp = await staff.context.newPage()
+        await signInThroughForm(mp, 'manager@saltmarsh.test', DEMO_PASSWORD)
+        await mp.waitForURL('**/manage')
+        await mp.goto('/manage/observations?demo=exclude&source=guest')
+        await mp.locator('[data-counts]').waitFor()
+        const [download] = await Promise.all([mp.waitForEvent('download'), mp.getByRole('link', { name: 'Download CSV' }).click()])
+        const lines = readFileSync((await download.path())!, 'utf8').split('\r\n').filter(Boolean)
+        const header = lines[0]!.split(',')
+        const mine = lines.slice(1).map(l => Object.fromEntries(l.split(',').map((v, i) => [header[i], v]))).find(r => r['Observation'] === String(rows[0]!.id))
+        expect(mine).toMatchObject({ 'Source': 'guest', 'Demo': 'no', 'Session': String(sessionId), 'Band mm': '7', 'Room RH %': '66', 'Room reading': 'session', 'Tear speed': 'steady' })
+        expect(['inside', 'above', 'below']).toContain(mine!['Band against range'])
+      }
+      finally { await staff.close() }
     }
     finally { await close() }
-  }, 60_000)
+  }, 90_000)
 
   it('the host records a glass from the host\'s day, with the room reading prefilled from the session', async () => {
     const { context, close } = await openBrowser(TABLET)

@@ -75,7 +75,7 @@ beforeAll(async () => {
     { band: mid, speed: speedOutside, device: 'b'.repeat(64) },
     { band: farAbove, device: 'c'.repeat(64) },
     { band: null, noClear: true, device: null, source: 'host' },
-    { band: mid, device: 'd'.repeat(64), flags: ['band_but_no_tears'] },
+    { band: mid, device: 'd'.repeat(64), flags: ['band_without_tears'] },
   ], page.body.room)
 })
 
@@ -100,7 +100,7 @@ describe('the summary', () => {
     expect(s.byProduct.map((p: { id: number }) => p.id)).toEqual([productId])
     expect(s.byFlight.map((p: { id: number }) => p.id)).toEqual([flightId])
     const outliers = s.outliers.map((o: { row: { outlier: string } }) => o.row.outlier)
-    expect(outliers.some((t: string) => t.startsWith('Flagged: a band read although no tears formed'))).toBe(true)
+    expect(outliers.some((t: string) => t.startsWith('Flagged: a band reported with “no tears”'))).toBe(true)
     expect(outliers.some((t: string) => /far outside/.test(t))).toBe(true)
     expect(s.chart).toHaveLength(1)
     expect(s.chart[0].band).toEqual(band)
@@ -114,7 +114,7 @@ describe('the summary', () => {
     expect(real.demo).toBe(0)
     expect(all.total - real.total).toBe(all.demo)
     // The season's flooding device (server/demo/season.ts) is one outlier with its 3 entries (the route's cap per device, pour and session), not 3.
-    const flood = all.outliers.filter((o: { entries: number }) => o.entries > 1)
+    const flood = all.outliers.filter((o: { entries: number, row: { demo: boolean } }) => o.row.demo && o.entries > 1)
     expect(flood).toHaveLength(1)
     expect(flood[0].entries).toBe(3)
     expect(flood[0].row.product.name).toBe('Marsh Samphire Gin')
@@ -163,7 +163,7 @@ describe('the CSV', () => {
     const row = parsed.data.find(r => r['Band against range'] === 'above')!
     expect(Number(row['Predicted band low mm'])).toBeCloseTo(band.low, 2)
     expect(Number(row['Predicted band high mm'])).toBeCloseTo(band.high, 2)
-    expect(parsed.data.filter(r => r.Flags === 'a band read although no tears formed')).toHaveLength(1)
+    expect(parsed.data.filter(r => r.Flags === 'a band reported with “no tears”')).toHaveLength(1)
     expect(parsed.data.filter(r => r['Band against range'] === 'inside')).toHaveLength(4) // the flagged one is inside too; the CSV keeps it
     const hosts = Papa.parse(await (await manager.raw(`/api/observations/export.csv?glassId=${glassId}&source=host`)).text(), { header: true, skipEmptyLines: true })
     expect(hosts.data).toHaveLength(1)

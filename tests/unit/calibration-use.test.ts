@@ -9,7 +9,7 @@ import { planSeason, planSeasonSessions, type SeasonPour } from '../../server/de
 import { DEMO_VENUE } from '../../server/demo/data'
 
 const group = (over: Partial<GroupCalibration>): GroupCalibration => ({
-  glassKey: '7', roomKey: null, observations: 40, devices: 30,
+  glassKey: '7', roomKey: null, observations: 40, devices: 30, entries: 40, correlation: 0, fit: { bandScatter: 0.1, speedScoreZ: 0 },
   parameters: { exchangeFactor: 1.4, massTransferFactor: 0.9 },
   intervals: { exchangeFactor: [1.2, 1.6], massTransferFactor: [0.8, 1] },
   sdLn: { exchangeFactor: 0.1, massTransferFactor: 0.08 },
@@ -26,7 +26,7 @@ describe('which calibration a glass uses', () => {
     expect(pickAppliedGroup([overall, { ...inRoom, status: 'too_few' }], '7', '1')?.observations).toBe(40)
     expect(pickAppliedGroup([{ ...overall, status: 'does_not_fit' }, { ...inRoom, status: 'too_few' }], '7', '1')).toBeNull()
     expect(pickAppliedGroup([overall], '8', '1')).toBeNull()
-    expect(pickAppliedGroup([overall], '7', '2')).toEqual({ parameters: overall.parameters, sdLn: overall.sdLn, observations: 40 })
+    expect(pickAppliedGroup([overall], '7', '2')).toEqual({ parameters: overall.parameters, sdLn: overall.sdLn, correlation: 0, observations: 40 })
   })
 })
 
@@ -60,11 +60,11 @@ describe('the prediction memo', () => {
 describe('when cards started to use a calibration', () => {
   it('is the time of the observation with which a fit first applies', () => {
     const rows: FitRow[] = Array.from({ length: 40 }, (_, i) => ({
-      row: { id: i + 1, recordedAt: new Date(Date.UTC(2026, 8, 1 + i)), flags: i === 3 ? ['band_but_no_tears'] : [] },
+      row: { id: i + 1, recordedAt: new Date(Date.UTC(2026, 8, 1 + i)), flags: i === 3 ? ['band_without_tears'] : [] },
       fit: { glassKey: '7', roomKey: '1' } as FitObservation,
     }) as unknown as FitRow)
     // A stand-in fit that applies from 20 readings on (the real method is the science side's).
-    const fit = (list: FitObservation[]): CalibrationResult => ({ groups: [group({ observations: list.length, status: list.length >= 20 ? 'applied' : 'too_few' })] })
+    const fit = (list: FitObservation[]): CalibrationResult => ({ groups: [group({ observations: list.length, status: list.length >= 20 ? 'applied' : 'too_few' })], modelRuns: 0 })
     const since = appliedSince(rows, fit(rows.filter(r => r.row.flags.length === 0).map(r => r.fit)), fit)
     // The 20th unflagged reading is row 21 (row 4 is flagged and left out): 2026-09-21.
     expect(since.get('7|')).toBe('2026-09-21T00:00:00.000Z')
