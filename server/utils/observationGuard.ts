@@ -21,7 +21,7 @@ let keys: { challenge: Buffer, device: Buffer } | undefined
 const observationKeys = () => (keys ??= { challenge: derivedKey('observation challenge v1'), device: derivedKey('observation device v1') })
 
 /** The device cookie: random, httpOnly, SameSite=Lax, kept for 400 days (the longest Chromium keeps any cookie). */
-const DEVICE_COOKIE = 'larmoir_device'
+export const DEVICE_COOKIE = 'larmoir_device'
 const DEVICE_COOKIE_MAX_AGE_S = 400 * 24 * 3600
 
 /** The device's cookie, made and set now if it has none (the challenge route). */

@@ -1,13 +1,15 @@
 import { createHash } from 'node:crypto'
 import { gzipSync } from 'node:zlib'
 import type { H3Event } from 'h3'
+import { DEVICE_COOKIE } from './observationGuard'
 
 /**
  * Whole public pages, server-rendered once and kept in this process's memory for anonymous
  * visitors (server/plugins/pageCache.ts serves and stores them; DEVELOPERS.md, "Page cache").
  *
  * Only a GET or HEAD of a public page's exact path (PUBLIC_PAGES), with no query string and no
- * Cookie header at all, is served from or stored in the cache: a signed-in visitor always carries
+ * cookie but the ones no page is rendered from (PAGE_NEUTRAL_COOKIES: the observation form's device
+ * cookie, read only by /api routes), is served from or stored in the cache: a signed-in visitor always carries
  * the session cookie, so nothing rendered for a person can be kept, and nothing they see can come
  * from here. Only a 200 that sets no cookie is stored.
  *
@@ -44,12 +46,26 @@ let seatsTimer: ReturnType<typeof setTimeout> | null = null
 /** Renders under way, by key: requests for the same page wait for the one render instead of starting their own. */
 const rendering = new Map<string, { done: Promise<void>, resolve: () => void }>()
 
+/**
+ * Cookies no page is rendered from: the observation form's device cookie (server/utils/observationGuard.ts)
+ * is read only by the /api routes that record and compare a glass. A guest who has opened a pour page
+ * still gets cached pages; any other cookie (the session's above all) means a live render.
+ */
+const PAGE_NEUTRAL_COOKIES = new Set([DEVICE_COOKIE])
+
+/** Whether a Cookie header carries only cookies no page is rendered from (or none). */
+function onlyNeutralCookies(header: string | undefined): boolean {
+  if (header === undefined) return true
+  const names = header.split(';').map(p => p.split('=')[0]!.trim()).filter(Boolean)
+  return names.length > 0 && names.every(n => PAGE_NEUTRAL_COOKIES.has(n))
+}
+
 /** The key of a request that may be served from and stored in the cache, else null. */
 export function pageCacheKey(event: H3Event): string | null {
   if (event.method !== 'GET' && event.method !== 'HEAD') return null
   const url = event.node.req.url ?? ''
   if (url.includes('?')) return null
-  if (event.node.req.headers.cookie !== undefined || event.node.req.headers.authorization !== undefined) return null
+  if (!onlyNeutralCookies(event.node.req.headers.cookie) || event.node.req.headers.authorization !== undefined) return null
   return PUBLIC_PAGES.some(p => p.test(url)) ? url : null
 }
 

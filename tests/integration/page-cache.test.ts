@@ -69,9 +69,25 @@ describe('the page cache', () => {
     }
   })
 
+  it('serves a guest who has opened a pour page (and so carries only the observation form\'s device cookie) from the cache', async () => {
+    // The challenge route is what gives a browser its device cookie.
+    const guest = new Client()
+    const challenge = await guest.get('/api/observations/challenge')
+    expect(challenge.status).toBe(200)
+    const set = challenge.headers.get('set-cookie') ?? ''
+    expect(set).toMatch(/^larmoir_device=/)
+    const cookie = set.split(';')[0]!
+    await waitFor(async () => (await guest.send('GET', '/flights', undefined, { cookie })).headers.get('x-page-cache') === 'hit', '/flights from the cache with the device cookie')
+    const again = await guest.send('GET', '/flights', undefined, { cookie })
+    expect(again.headers.get('x-page-cache')).toBe('hit')
+    expect(again.headers.get('set-cookie')).toBeNull()
+  })
+
   it('renders live a request that carries any cookie or a query string, and pages that are not public', async () => {
     const withCookie = await new Client().send('GET', '/flights', undefined, { cookie: 'something=else' })
     expect(withCookie.headers.get('x-page-cache')).toBeNull()
+    const deviceAndMore = await new Client().send('GET', '/flights', undefined, { cookie: 'larmoir_device=abcdefabcdefabcdefabcdefabcdefab; something=else' })
+    expect(deviceAndMore.headers.get('x-page-cache')).toBeNull()
     expect(withCookie.headers.get('cache-control')).toBe('private, no-store')
     expect((await visit('/flights?from=newsletter')).headers.get('x-page-cache')).toBeNull()
     for (const path of ['/signin', '/signup']) {
