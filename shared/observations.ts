@@ -79,6 +79,12 @@ export interface ObservedValues {
   tearSpeed: TearSpeed | null
 }
 
+/** What was seen in one glass and when, as it is stored and read back (no identity). */
+export interface SeenInGlass extends ObservedValues {
+  minutesSince: number
+  since: ObservedSince
+}
+
 /** What compareObservation needs of a prediction (a TearPrediction fits). */
 export interface PredictedRanges {
   tearsExpected: boolean

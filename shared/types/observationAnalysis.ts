@@ -1,4 +1,4 @@
-import type { ObservationComparison, ObservationSource, ObservedSince, RoomSource, TearCount, TearSpeed, TearsFormed } from '../observations'
+import type { ObservationComparison, ObservationSource, RoomSource, SeenInGlass, TearSpeed } from '../observations'
 import type { GroupCalibration } from '../science/calibration'
 
 /** A 10–90 % range of the model. */
@@ -22,15 +22,7 @@ export interface ObservationRow {
   servingTempC: number
   volumeMl: number
   room: { relativeHumidityPct: number, airTempC: number, source: RoomSource }
-  seen: {
-    bandHeightMm: number | null
-    noClearBand: boolean
-    tearsFormed: TearsFormed
-    tearCount: TearCount | null
-    tearSpeed: TearSpeed | null
-    minutesSince: number
-    since: ObservedSince
-  }
+  seen: SeenInGlass
   /** The model's published-default prediction for these numbers, glass and room. */
   predicted: {
     tearsExpected: boolean

@@ -1,15 +1,8 @@
 import type { Range } from '../science/uncertainty'
-import type { ObservationComparison, ObservationFlag, ObservationSource, ObservedSince, RoomSource, TearCount, TearSpeed, TearsFormed } from '../observations'
+import type { ObservationComparison, ObservationFlag, ObservationSource, RoomSource, SeenInGlass, TearCount, TearSpeed, TearsFormed } from '../observations'
 
 /** One stored observation as its own device (or the host) reads it back: what was seen, never who. */
-export interface OwnObservation {
-  bandHeightMm: number | null
-  noClearBand: boolean
-  tearsFormed: TearsFormed
-  tearCount: TearCount | null
-  tearSpeed: TearSpeed | null
-  minutesSince: number
-  since: ObservedSince
+export interface OwnObservation extends SeenInGlass {
   recordedAt: string
   flags: ObservationFlag[]
   comparison: ObservationComparison
