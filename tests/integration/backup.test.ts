@@ -32,7 +32,7 @@ describe('backup and restore', () => {
     // Other test files keep writing while this one runs (and the sweep expires holds), so the dump is
     // compared with the rows that stood still: those last changed before the dump began.
     const tables = ['bookings', 'users', 'tasting_sessions', 'payment_events', 'products', 'outbox']
-    const [{ cutoff }] = await rows(TEST_PROFILE.db, 'SELECT UTC_TIMESTAMP(3) AS cutoff') as { cutoff: Date }[]
+    const { cutoff } = (await rows(TEST_PROFILE.db, 'SELECT UTC_TIMESTAMP(3) AS cutoff') as { cutoff: Date }[])[0]!
     const maxIds = new Map<string, number>()
     for (const table of tables) maxIds.set(table, Number(((await rows(TEST_PROFILE.db, `SELECT COALESCE(MAX(id), 0) AS m FROM \`${table}\``)) as { m: number }[])[0]!.m))
 
