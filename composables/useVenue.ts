@@ -38,3 +38,11 @@ export function useVenueFormat() {
     duration: formatDuration,
   }
 }
+
+/** The venue's temperature unit for forms that read a thermometer: 'c' or 'f', and its sign. */
+export function useTemperatureUnit() {
+  const { data: venue } = useVenue()
+  const unit = computed(() => venue.value?.temperatureUnit ?? 'c')
+  const sign = computed(() => (unit.value === 'f' ? '°F' : '°C'))
+  return { unit, sign }
+}
