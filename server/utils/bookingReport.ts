@@ -39,8 +39,16 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery): Promise<B
     : []
   const now = new Date()
   const counts = new Map<number, SeatCount>()
+  // Grouped once, so a month of a busy venue costs one pass over its bookings, not one per session.
+  // (Map.groupBy needs Node.js 21.)
+  const bySession = new Map<number, typeof rows>()
+  for (const r of rows) {
+    const list = bySession.get(r.b.sessionId)
+    if (list) list.push(r)
+    else bySession.set(r.b.sessionId, [r])
+  }
   const out = sessions.map((session) => {
-    const mine = rows.filter(r => r.b.sessionId === session.id)
+    const mine = bySession.get(session.id) ?? []
     const seats = countSeats(session.seats, mine.map(r => seatFactOf(r.b, r.checkIn, now)))
     counts.set(session.id, seats)
     const list = mine.map(({ b: row, guestName, guestEmail }) => ({
