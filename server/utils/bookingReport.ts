@@ -5,6 +5,7 @@ import type { z } from 'zod'
 import type { bookingReportQuerySchema } from '../../shared/schemas/bookings'
 import { addSeatCounts, countSeats, seatFactOf, type SeatCount } from '../../shared/seats'
 import type { BookingReport } from '../../shared/types/reports'
+import { groupedBy } from '../../shared/utils/grouped'
 
 type ReportQuery = z.output<typeof bookingReportQuerySchema>
 
@@ -40,13 +41,7 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery): Promise<B
   const now = new Date()
   const counts = new Map<number, SeatCount>()
   // Grouped once, so a month of a busy venue costs one pass over its bookings, not one per session.
-  // (Map.groupBy needs Node.js 21.)
-  const bySession = new Map<number, typeof rows>()
-  for (const r of rows) {
-    const list = bySession.get(r.b.sessionId)
-    if (list) list.push(r)
-    else bySession.set(r.b.sessionId, [r])
-  }
+  const bySession = groupedBy(rows, r => r.b.sessionId)
   const out = sessions.map((session) => {
     const mine = bySession.get(session.id) ?? []
     const seats = countSeats(session.seats, mine.map(r => seatFactOf(r.b, r.checkIn, now)))

@@ -5,6 +5,7 @@ import type { PourInput } from '../../shared/schemas/flights'
 import { flightTotals, type RoomAir } from '../../shared/science'
 import { drinkKindOf } from '../../shared/pours'
 import type { FlightPreview, FlightView, GlassView } from '../../shared/types/flights'
+import { groupedBy } from '../../shared/utils/grouped'
 
 export interface PourSpec { productId: number, volumeMl: number, glassId: number, servingTempC: number, note?: string | null }
 
@@ -100,6 +101,7 @@ export async function flightViews(venue: Venue, flights: Flight[], room: RoomAir
     .where(inArray(tables.tastingSessions.flightId, ids)).groupBy(tables.tastingSessions.flightId)).map(r => [r.flightId, r.n]))
   const ctx = await loadPourContext(venue, specs)
   const intros = await publishedNotes(venue.id, 'flight_intro', ids)
+  const pours = groupedBy(specs, s => s.flightId)
   return flights.map((flight) => {
     const n = sessionCounts.get(flight.id) ?? 0
     return {
@@ -116,7 +118,7 @@ export async function flightViews(venue: Venue, flights: Flight[], room: RoomAir
       sessionCount: n,
       /** Published or retired with sessions: its pours are fixed; a change needs a new version. */
       locked: flight.status !== 'draft' && n > 0,
-      ...computeWith(venue, ctx, specs.filter(s => s.flightId === flight.id), room),
+      ...computeWith(venue, ctx, pours.get(flight.id) ?? [], room),
     }
   })
 }

@@ -9,6 +9,7 @@ import { BOOKING_HISTORY_LABELS, BOOKING_STATE_LABELS, type BookingHistoryEvent 
 import { formatDay, formatDayTime, formatTime } from '../../shared/dates'
 import type { HostDay, HostHistoryStep, HostParty, HostPartyFound, SessionRoomReading } from '../../shared/types/host'
 import { countSeats, doorTiles, seatFactOf, type DoorOutcome } from '../../shared/seats'
+import { groupedBy } from '../../shared/utils/grouped'
 
 /** States a host sees on the day's list: who is coming, who came, who did not. */
 const ON_THE_LIST = ['held', 'confirmed', 'checked_in', 'no_show'] as const
@@ -121,11 +122,12 @@ export async function hostDay(venue: Venue, user: CurrentUser, date: string, now
     : []
   const histories = await historyOf(parties.map(p => p.b.id))
   const readers = await userNames(sessions.flatMap(r => (r.s.roomReadBy ? [r.s.roomReadBy] : [])))
+  const bySession = groupedBy(parties, p => p.b.sessionId)
   return {
     date: day.toISODate()!,
     timeZone: venue.timeZone,
     sessions: sessions.map(({ s, flightName, hostName }) => {
-      const mine = parties.filter(p => p.b.sessionId === s.id)
+      const mine = bySession.get(s.id) ?? []
       const seats = countSeats(s.seats, mine.map(p => seatFactOf(p.b, p.c, now)))
       const sizes = (source: Booking['source']) => mine.filter(p => p.b.source === source).reduce((n, p) => n + p.b.partySize, 0)
       const ends = endOf(s)

@@ -1,5 +1,6 @@
 import { and, desc, eq } from 'drizzle-orm'
 import type { PublishedFlight } from '../../../shared/types/flights'
+import { groupedBy } from '../../../shared/utils/grouped'
 
 const LIST_MAX_AGE_S = 5
 
@@ -22,8 +23,9 @@ async function publishedFlights(): Promise<PublishedFlight[]> {
     .where(and(eq(tables.flights.venueId, venue.id), eq(tables.flights.status, 'published')))
     .orderBy(desc(tables.flights.publishedAt))
   const [views, sessions] = await Promise.all([flightViews(venue, rows), loadOpenSessions(venue, { flightIds: rows.map(r => r.id) })])
+  const byFlight = groupedBy(sessions, s => s.flightId)
   return views.map((f) => {
-    const own = sessions.filter(s => s.flightId === f.id)
+    const own = byFlight.get(f.id) ?? []
     const bookable = own.filter(s => s.bookable)
     return {
       id: f.id,
