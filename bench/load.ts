@@ -6,7 +6,8 @@
  * (signed-in guests, 50 connections) on its refusal path (409, a full session) and its hold path
  * (201, every request a new hold); then times the card PDF. It samples the server's resident memory
  * all along. Each target runs for BENCH_SECONDS (default 6). Prints one Markdown table, each figure
- * with its ratio to the ceiling of the same run, and the goals of issue 17 it checks.
+ * with its ratio to the ceiling of the same run, and the goals of issue 17 it checks; then each
+ * guest page's weight and, unless BENCH_LIGHTHOUSE=0, Lighthouse on each (median of three).
  */
 import { execSync } from 'node:child_process'
 import { mkdirSync, readFileSync } from 'node:fs'
@@ -21,6 +22,8 @@ import { startMailFake } from '../scripts/fakes/mail'
 import { startStripeFake } from '../scripts/fakes/stripe'
 import { localSecrets } from '../scripts/lib/secrets'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../server/demo/data'
+import { measurePageWeight, pageWeightTable } from './pageWeight'
+import { lighthouseTable, runLighthouse } from './lighthouse'
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 6)
 /** LARMOIR_PORT_OFFSET shifts every port, as it does for the tests, so two checkouts can bench side by side. */
@@ -205,6 +208,10 @@ async function main() {
     await new Promise(r => setTimeout(r, 10_000))
     const afterMb = memory.rss()
 
+    // Goal 2: what each guest page weighs, and Lighthouse on each (BENCH_LIGHTHOUSE=0 leaves it out).
+    const weights = await measurePageWeight(base, root, flightId)
+    const lighthouseRows = process.env.BENCH_LIGHTHOUSE === '0' ? null : await runLighthouse(base, flightId)
+
     const pct = (x: number) => `${(x * 100).toFixed(1)} %`
     console.log(`\n${execSync('date -u').toString().trim()} · ${cpus().length} cores (nproc ${execSync('nproc').toString().trim()}) · load average ${loadavg().map(l => l.toFixed(1)).join(' ')} · ${SECONDS} s per target · Node ${process.version}\n`)
     console.log(`Ratios are to the higher ceiling: ${ceiling.rps.toFixed(0)} req/s, p99 ${ceiling.p99} ms.\n`)
@@ -221,6 +228,8 @@ async function main() {
     console.log(`\nSeats: ${overbooked.length ? `OVERBOOKED ${JSON.stringify(overbooked)}` : `no session over its seats (${taken.length} sessions, ${taken.reduce((s, r) => s + Number(r.taken), 0)} seats taken)`}`)
     console.log(`Card PDF (A5, one copy) over HTTP: first ${pdfFirst.toFixed(1)} ms, then median of 20 sequential requests ${pdfMedian.toFixed(1)} ms (goal 3's figures come from \`npm run bench\`)`)
     console.log(`Server resident memory: idle ${idleMb.toFixed(0)} MB, peak ${peakMb.toFixed(0)} MB, 10 s after the load ${afterMb.toFixed(0)} MB (${pct(afterMb / idleMb - 1)} over idle; goal 6: peak < 400 MB — ${peakMb < 400 ? 'met' : 'not met'}, after within 20 % of idle — ${afterMb <= idleMb * 1.2 ? 'met' : 'not met'})`)
+    console.log(`\nGuest pages' weight (HTML as sent to a browser that accepts gzip, measured unzipped and gzipped; payload = the __NUXT_DATA__ script):\n\n${pageWeightTable(weights)}`)
+    console.log(lighthouseRows ? `\nLighthouse 12.2.3, mobile, simulated throttling, median of 3 runs each:\n\n${lighthouseTable(lighthouseRows)}` : '\nLighthouse: left out (BENCH_LIGHTHOUSE=0).')
     if (overbooked.length) process.exitCode = 1
   }
   finally {

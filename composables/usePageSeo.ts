@@ -1,5 +1,5 @@
 import type { MaybeRefOrGetter } from 'vue'
-import type { ImageView } from '#shared/types/content'
+import type { ShownImage } from '#shared/types/content'
 import { jsonLdText } from '#shared/seo'
 
 /** Widest image a link preview asks for, px (common practice for large preview cards, no source). */
@@ -20,7 +20,7 @@ export function useSiteUrl(): string {
 export function useImageAddress() {
   const site = useSiteUrl()
   const img = useImage()
-  return (p: ImageView) => {
+  return (p: ShownImage) => {
     const width = Math.min(PREVIEW_WIDTH, p.width)
     return { url: new URL(img(p.src, { width, format: 'jpeg' }), site).toString(), width, height: Math.round(p.height * width / p.width) }
   }
@@ -30,7 +30,7 @@ export function useImageAddress() {
  * A public page's title, description and link preview: Open Graph and Twitter-card tags with an
  * absolute image address (the page's own photo, else the venue's), and the canonical address.
  */
-export function usePageSeo(opts: { title: MaybeRefOrGetter<string>, description: MaybeRefOrGetter<string>, image?: MaybeRefOrGetter<ImageView | null | undefined>, type?: 'website' | 'article' }) {
+export function usePageSeo(opts: { title: MaybeRefOrGetter<string>, description: MaybeRefOrGetter<string>, image?: MaybeRefOrGetter<ShownImage | null | undefined>, type?: 'website' | 'article' }) {
   const site = useSiteUrl()
   const route = useRoute()
   const imageAddress = useImageAddress()

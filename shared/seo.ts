@@ -6,7 +6,7 @@
 import { formatIsoInZone } from './dates'
 import { minorToDecimal } from './money'
 import { WEEKDAYS, type OpeningHours } from './venue'
-import type { PublicSession } from './types/sessions'
+import type { ListedSession } from './types/sessions'
 
 type JsonLd = Record<string, unknown>
 
@@ -53,7 +53,14 @@ export function offerAvailability(seatsLeft: number): string {
  * major units as a decimal string ("35.00"), its currency, availability from the seats left, and
  * the booking page. Start and end carry the venue's offset at each instant.
  */
-export function sessionEventLd(s: PublicSession, opts: { flightName: string, description: string, venue: SeoVenue, timeZone: string, siteUrl: string, images: string[] }): JsonLd {
+/**
+ * How many of a flight's sessions its page describes as Events: the next ones, soonest first. A
+ * search engine reads the page again often; describing every date on sale would make the page
+ * several times heavier for no guest's benefit.
+ */
+export const EVENT_LD_LIMIT = 6
+
+export function sessionEventLd(s: ListedSession, opts: { flightName: string, description: string, venue: SeoVenue, timeZone: string, siteUrl: string, images: string[] }): JsonLd {
   const place = { '@type': 'Place', 'name': opts.venue.name, 'address': opts.venue.address }
   return {
     '@context': SCHEMA,

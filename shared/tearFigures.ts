@@ -29,7 +29,12 @@ function countRangeText(r: Range): string {
  * meniscus is named so (describePour says it in words: it "stays low"), and the swirl's legs take
  * the tears' place; they start as the swirl drains, so no onset is given for them, as in the text.
  */
-export function tearFigures(p: Pick<TearPrediction, 'tearsExpected' | 'bandVisible' | 'ranges'>): TearFigure[] {
+/** What the tear figures and their summary read of a prediction. */
+export type FigurePrediction = Pick<TearPrediction, 'tearsExpected' | 'bandVisible' | 'suppressedBy' | 'climbFlux_mm2_s'> & {
+  ranges: Omit<TearPrediction['ranges'], 'filmThickness_um'>
+}
+
+export function tearFigures(p: Pick<FigurePrediction, 'tearsExpected' | 'bandVisible' | 'ranges'>): TearFigure[] {
   if (!p.tearsExpected) return []
   const r = p.ranges
   const band = p.bandVisible

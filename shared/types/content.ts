@@ -29,6 +29,9 @@ export interface ImageView {
   altText: string
 }
 
+/** What a page needs to show an uploaded image: its file, its stored size and its words. */
+export type ShownImage = Pick<ImageView, 'src' | 'width' | 'height' | 'altText'>
+
 /** A note or article as the editor shows it (GET/PUT /api/content/[kind]/[subject] and its actions). */
 export interface ContentDocView {
   id: number | null

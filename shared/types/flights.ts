@@ -2,7 +2,7 @@ import type { FlightStatus } from '../flights'
 import type { LiquidColour } from '../liquidColours'
 import type { Allergen, ProductKind, ProductStatus } from '../products'
 import type { FilmResult } from '../science'
-import type { ImageView, RenderedText } from './content'
+import type { ImageView, RenderedText, ShownImage } from './content'
 import type { PublicSession } from './sessions'
 
 /** A glass shape as the diagram and the glass model read it (GET /api/glasses). */
@@ -75,4 +75,34 @@ export interface PublishedFlight {
   lengthMinutes: { min: number, max: number } | null
   /** The pours' photos in pour order (those that have one): the flight's line-up and link previews. */
   photos: ImageView[]
+}
+
+/**
+ * One pour as the public flight page shows it: the flight view's pour without the model's
+ * intermediate quantities (only the room it assumed and its predictions) and with the tasting note
+ * as HTML only. shared/flightPage.ts makes it.
+ */
+export interface GuestPour extends Omit<FlightPourView, 'film' | 'tastingNote' | 'note' | 'measuredOn' | 'productId' | 'residualSugarGL' | 'ethanolGrams' | 'product' | 'glass' | 'photo'> {
+  product: Omit<FlightPourView['product'], 'code' | 'status'>
+  glass: Omit<GlassView, 'id'>
+  photo: ShownImage | null
+  film: { inputs: Pick<FilmResult['inputs'], 'room'>, predictions: GuestPrediction }
+  tastingNote: { html: string } | null
+}
+
+/** The predictions the guest's pour shows: the glass drawing's, the tear figures' and the index meter's. */
+export type GuestPrediction = Pick<FilmResult['predictions'], 'tearsExpected' | 'bandVisible' | 'suppressedBy' | 'climbFlux_mm2_s'
+  | 'clearBandHeight_mm' | 'meniscusHeight_mm' | 'tearWidth_mm' | 'tearFallSpeed_mm_s' | 'tearSpacing_mm' | 'tearsAround'> & {
+    ranges: Omit<FilmResult['predictions']['ranges'], 'filmThickness_um'>
+  }
+
+/** The public flight page's data (shared/flightPage.ts): what the page shows, no more. */
+export interface GuestFlight {
+  id: number
+  name: string
+  summary: string
+  /** Marketing's introduction as HTML, and the first 200 characters of its text for the page's description. */
+  intro: { html: string, text: string } | null
+  totals: Pick<FlightTotalsView, 'volumeMl' | 'ethanolGrams' | 'standardDrinks'>
+  pours: GuestPour[]
 }

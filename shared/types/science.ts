@@ -1,6 +1,7 @@
 import type { ProductKind } from '../products'
 import type { LiquidColour } from '../liquidColours'
 import type { FilmResult, TearPrediction } from '../science'
+import type { Range } from '../science/uncertainty'
 
 /** Every quantity of the glass model for one pour, and the guest's sentences (GET /api/science/film). */
 export interface FilmView extends FilmResult { description: string[] }
@@ -22,3 +23,6 @@ export interface ProductOnCurve {
   viscosity_mPa_s: number
   description: string[]
 }
+
+/** One pour on the curve chart: its label, ABV (% vol), index and the index's range. */
+export interface CurveMark { label: string, abvPctVol: number, filmActivityIndex: number, indexRange?: Range | null }

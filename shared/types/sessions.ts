@@ -20,6 +20,9 @@ export interface PublicSession {
   closedReason: string | null
 }
 
+/** A session as a guest's list shows it: the public session without what the list already knows. */
+export type ListedSession = Omit<PublicSession, 'flightId' | 'flightName' | 'startsLocal'>
+
 /** What the booking form needs about one session (GET /api/sessions/[id]/availability). */
 export interface SessionAvailability {
   session: PublicSession

@@ -3,7 +3,7 @@ import { resolve } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import type { BrowserContext, Page } from 'playwright-core'
 import { DateTime } from 'luxon'
-import { SHOTS_DIR, openBrowser, payWithTestCard, shot, signInThroughForm } from '../support/browser'
+import { SHOTS_DIR, openBrowser, payWithTestCard, shot, showCurveChart, signInThroughForm } from '../support/browser'
 import { type Client, uniqueEmail } from '../support/http'
 import { withDb } from '../support/db'
 import { linkUrl, waitForMail } from '../support/mail'
@@ -40,16 +40,16 @@ describe('a guest books and pays through the pages', () => {
     flightPath = new URL(page.url()).pathname
     await page.getByRole('heading', { name: 'The pours, in order' }).waitFor()
     expect(await page.locator('ol > li article').count()).toBe(6)
-    await page.locator('canvas').first().waitFor()
-    await page.waitForTimeout(300) // the chart draws on the next frame
+    await showCurveChart(page)
+    await page.evaluate(() => window.scrollTo(0, 0))
     await shot(page, 'booking-flight-desktop')
     await page.close()
 
     const small = await phone.context.newPage()
     await small.goto(flightPath)
     await small.getByRole('heading', { name: 'Next sessions' }).waitFor()
-    await small.locator('canvas').first().waitFor()
-    await small.waitForTimeout(300)
+    await showCurveChart(small)
+    await small.evaluate(() => window.scrollTo(0, 0))
     const overflow = await small.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)
     expect(overflow).toBeLessThanOrEqual(0)
     await shot(small, 'booking-flight-phone')

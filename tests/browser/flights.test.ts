@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext } from 'playwright-core'
-import { openBrowser, shot, signInThroughForm } from '../support/browser'
+import { openBrowser, shot, showCurveChart, signInThroughForm } from '../support/browser'
 import { DEMO_PASSWORD } from '../../server/demo/data'
 
 describe('the flight builder and the public glass page', () => {
@@ -64,13 +64,15 @@ describe('the flight builder and the public glass page', () => {
     await page.goto('/glass')
     await page.getByText('Our bottles, glass by glass').waitFor()
     expect(await page.getByText('Tears say nothing about quality').count()).toBeGreaterThanOrEqual(6)
-    await page.locator('canvas').first().waitFor()
+    await showCurveChart(page)
+    await page.evaluate(() => window.scrollTo(0, 0))
     await shot(page, 'glass-page')
     await page.close()
     const phone = await openBrowser({ width: 390, height: 844 })
     const p2 = await phone.context.newPage()
     await p2.goto('/glass')
-    await p2.locator('canvas').first().waitFor()
+    await showCurveChart(p2)
+    await p2.evaluate(() => window.scrollTo(0, 0))
     await shot(p2, 'glass-page-phone')
     await phone.close()
   })

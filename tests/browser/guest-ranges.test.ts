@@ -2,7 +2,7 @@ import { mkdirSync } from 'node:fs'
 import { resolve } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
 import type { Locator, Page, Request } from 'playwright-core'
-import { SHOTS_DIR, openBrowser, shot, signInThroughForm } from '../support/browser'
+import { SHOTS_DIR, openBrowser, shot, showCurveChart, signInThroughForm } from '../support/browser'
 import { Client } from '../support/http'
 import { demoFlightId } from '../support/booking'
 import { DEMO_PASSWORD, DEMO_PRODUCTS } from '../../server/demo/data'
@@ -152,7 +152,7 @@ describe('the guest\'s pages show the model\'s ranges', () => {
         if (r.url().includes('/api/science/curve')) curves.push(r)
       })
       await page.goto('/glass')
-      await page.locator('canvas').first().waitFor()
+      await showCurveChart(page)
       const caption = page.locator('figcaption').filter({ hasText: 'the index is 0 for water' })
       await expect.poll(() => caption.innerText()).toMatch(/50\s%\shumidity/)
       const answer = page.waitForResponse(r => r.url().includes('/api/science/curve') && new URL(r.url()).searchParams.get('rh') === '70')

@@ -4,7 +4,7 @@ import { join, relative, resolve } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { ConsoleMessage, Locator, Page } from 'playwright-core'
 import { DateTime } from 'luxon'
-import { openBrowser, shot, signInThroughForm } from '../support/browser'
+import { openBrowser, shot, showCurveChart, signInThroughForm } from '../support/browser'
 import { Client } from '../support/http'
 import { inviteStaff, requestPasswordReset, signedIn } from '../support/people'
 import { bookAndPay, demoFlightId, newGuest, newSession } from '../support/booking'
@@ -79,9 +79,9 @@ const PAGES: Record<string, PageRow> = {
   '/cards/flights/[id]': { who: 'marketing', params: f => ({ id: f.flight }), main: p => p.getByRole('article').filter({ has: p.getByRole('heading', { level: 1, name: FLIGHT_NAME }) }) },
   '/cards/sessions/[id]': { who: 'host', params: f => ({ id: f.session }), main: p => p.getByText(`${PARTY} cards`, { exact: true }) },
   '/flights': { who: 'anonymous', main: p => p.getByRole('main').getByRole('link', { name: FLIGHT_NAME }) },
-  '/flights/[id]': { who: 'anonymous', params: f => ({ id: f.flight }), main: p => p.locator('canvas') },
+  '/flights/[id]': { who: 'anonymous', params: f => ({ id: f.flight }), main: p => p.locator('[data-curve-chart]') },
   '/forgot-password': { who: 'anonymous', main: p => p.getByRole('button', { name: 'Send me a link' }) },
-  '/glass': { who: 'anonymous', main: p => p.locator('canvas') },
+  '/glass': { who: 'anonymous', main: p => p.locator('[data-curve-chart]') },
   '/host': { who: 'host', query: f => ({ date: f.sessionDay }), main: (p, f) => p.locator(`section[aria-labelledby="s-${f.session}"]`).getByRole('button', { name: 'Print all cards' }) },
   '/manage': { who: 'manager', main: p => p.getByRole('link', { name: /Active products/ }) },
   '/manage/bookings': { who: 'manager', main: p => p.getByRole('button', { name: 'Show', exact: true }) },
@@ -100,7 +100,7 @@ const PAGES: Record<string, PageRow> = {
   '/manage/staff': { who: 'manager', main: p => p.getByRole('button', { name: 'Send invitation' }) },
   '/manage/venue': { who: 'manager', main: p => p.getByRole('button', { name: 'Save settings' }) },
   '/pour/[flightId]': { who: 'anonymous', params: f => ({ flightId: f.flight }), main: p => p.getByRole('link', { name: /^1\. / }) },
-  '/pour/[flightId]/[position]': { who: 'anonymous', params: f => ({ flightId: f.flight, position: 1 }), main: p => p.locator('canvas') },
+  '/pour/[flightId]/[position]': { who: 'anonymous', params: f => ({ flightId: f.flight, position: 1 }), main: p => p.locator('[data-curve-chart]') },
   '/reset-password': { who: 'anonymous', query: f => ({ token: f.resetToken }), main: p => p.getByRole('button', { name: 'Save my new password' }) },
   '/signin': { who: 'anonymous', main: p => p.getByRole('button', { name: 'Sign in' }) },
   '/signup': { who: 'anonymous', main: p => p.getByRole('button', { name: 'Create my account' }) },
@@ -230,6 +230,8 @@ describe('every page file', () => {
       await main.waitFor({ state: 'visible' }).catch((e: Error) => {
         throw new Error(`${file}: its main control ${main} is not on the page (${e.message.split('\n')[0]})`)
       })
+      // A page's σ and index chart loads when it nears the screen: it must, and draw.
+      if (await page.locator('[data-curve-chart]').count()) await showCurveChart(page)
       await page.waitForTimeout(300) // charts draw on the next frame
       await shot(page, shotName(route))
       const serious = (await axe(page)).filter(f => f.impact === 'serious' || f.impact === 'critical')

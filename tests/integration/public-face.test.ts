@@ -9,6 +9,7 @@ import { openBrowser } from '../support/browser'
 import { bookAndPay, newGuest, newSession } from '../support/booking'
 import { DEMO_PRODUCTS, DEMO_VENUE } from '../../server/demo/data'
 import { holidayOn } from '../../server/demo/holidays'
+import { EVENT_LD_LIMIT } from '../../shared/seo'
 
 /**
  * The venue's public face as machines read it: the sitemap and robots.txt, schema.org JSON-LD on
@@ -141,6 +142,17 @@ describe('schema.org JSON-LD', () => {
     }
     expect(events.find(e => e.offers.url.endsWith(`/book/${full.id}`))!.offers.availability).toBe('https://schema.org/SoldOut')
     expect(events.find(e => e.offers.url.endsWith(`/book/${open.id}`))!.offers).toMatchObject({ price: '42.50', availability: 'https://schema.org/InStock' })
+  })
+
+  it('a flight with more sessions on sale than the page describes gets Events for the soonest only', async () => {
+    const manager = await signedIn('manager')
+    const flightId = await ownFlight(manager, `Busy event flight ${Date.now()}`)
+    for (let i = 0; i <= EVENT_LD_LIMIT; i++) await newSession(manager, { flightId, hoursAhead: 24 * (10 + i) })
+    const sessions = (await new Client().get(`/api/flights/${flightId}/sessions`)).body as { id: number, startsAt: string }[]
+    expect(sessions.length).toBe(EVENT_LD_LIMIT + 1)
+    const soonest = [...sessions].sort((a, b) => a.startsAt.localeCompare(b.startsAt)).slice(0, EVENT_LD_LIMIT)
+    const events = jsonLd(await html(`/flights/${flightId}`)).filter(d => d['@type'] === 'Event')
+    expect(events.map(e => e.offers.url).sort()).toEqual(soonest.map(s => new URL(`/book/${s.id}`, appUrl()).toString()).sort())
   })
 
   it('the home page describes the venue as a LocalBusiness with its address, phone and opening hours', async () => {

@@ -57,3 +57,16 @@ export async function payWithTestCard(page: Page, nameOnCard: string) {
   await page.getByLabel('CVC').fill('123')
   await page.getByRole('button', { name: /^Pay / }).click()
 }
+
+/**
+ * The σ and index chart of a page (GlassCurveChart) loads when it comes near the screen: scroll
+ * to it, wait for its canvas and the frame it draws on, and answer the canvas.
+ */
+export async function showCurveChart(page: Page, nth = 0) {
+  const box = page.locator('[data-curve-chart]').nth(nth)
+  await box.scrollIntoViewIfNeeded()
+  const canvas = box.locator('canvas')
+  await canvas.waitFor()
+  await page.waitForTimeout(300) // the chart draws on the next frame
+  return canvas
+}
