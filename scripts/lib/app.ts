@@ -11,7 +11,9 @@ export async function startApp(opts: { port: number, env: Record<string, string>
   const entry = resolve(root, '.output/server/index.mjs')
   if (!existsSync(entry)) throw new Error('The app is not built yet: run `npx nuxt build` first.')
   const log = openSync(opts.logFile, 'a')
-  const child = spawn(process.execPath, [entry], {
+  // BENCH_CPU_PROF=dir: the server writes a V8 CPU profile there when it stops (for reading a bench run).
+  const prof = process.env.BENCH_CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${resolve(root, process.env.BENCH_CPU_PROF)}`] : []
+  const child = spawn(process.execPath, [...prof, entry], {
     cwd: root,
     env: { ...process.env, ...opts.env, HOST: '127.0.0.1', PORT: String(opts.port), NODE_ENV: 'production' },
     stdio: ['ignore', log, log],
