@@ -26,6 +26,8 @@ import { measurePageWeight, pageWeightTable } from './pageWeight'
 import { lighthouseTable, runLighthouse } from './lighthouse'
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 6)
+/** BENCH_ONLY=booking runs the ceiling and the booking POST only (for profiling that route). */
+const ONLY_BOOKING = process.env.BENCH_ONLY === 'booking'
 /** LARMOIR_PORT_OFFSET shifts every port, as it does for the tests, so two checkouts can bench side by side. */
 const OFFSET = Number(process.env.LARMOIR_PORT_OFFSET ?? 0) || 0
 const BENCH_DB: DbInstance = { name: 'bench-db', port: 3419 + OFFSET, database: 'larmoir_bench', user: 'larmoir', password: 'larmoir' }
@@ -147,9 +149,11 @@ async function main() {
     const rows: Row[] = []
     const ceilingBefore = await run('GET /api/ping (ceiling, no database), before', { url: `${base}/api/ping` })
     // Pages are asked for as a browser asks: accepting gzip (a cached page is sent gzipped).
-    for (const [path, what] of pages) rows.push(await run(`GET ${path} (${what}, anonymous)`, { url: `${base}${path}`, headers: BROWSER }, 'page'))
-    rows.push(await run(`GET /api/flights/${flightId}`, { url: `${base}/api/flights/${flightId}` }))
-    rows.push(await run('GET /api/flights/published', { url: `${base}/api/flights/published` }))
+    if (!ONLY_BOOKING) {
+      for (const [path, what] of pages) rows.push(await run(`GET ${path} (${what}, anonymous)`, { url: `${base}${path}`, headers: BROWSER }, 'page'))
+      rows.push(await run(`GET /api/flights/${flightId}`, { url: `${base}/api/flights/${flightId}` }))
+      rows.push(await run('GET /api/flights/published', { url: `${base}/api/flights/published` }))
+    }
     const ceilingAfter = await run('GET /api/ping (ceiling, no database), after', { url: `${base}/api/ping` })
     const ceiling = ceilingAfter.rps > ceilingBefore.rps ? ceilingAfter : ceilingBefore
     rows.unshift(ceilingBefore, ceilingAfter)
@@ -210,7 +214,7 @@ async function main() {
 
     // Goal 2: what each guest page weighs, and Lighthouse on each (BENCH_LIGHTHOUSE=0 leaves it out).
     const weights = await measurePageWeight(base, root, flightId)
-    const lighthouseRows = process.env.BENCH_LIGHTHOUSE === '0' ? null : await runLighthouse(base, flightId)
+    const lighthouseRows = process.env.BENCH_LIGHTHOUSE === '0' || ONLY_BOOKING ? null : await runLighthouse(base, flightId)
 
     const pct = (x: number) => `${(x * 100).toFixed(1)} %`
     console.log(`\n${execSync('date -u').toString().trim()} · ${cpus().length} cores (nproc ${execSync('nproc').toString().trim()}) · load average ${loadavg().map(l => l.toFixed(1)).join(' ')} · ${SECONDS} s per target · Node ${process.version}\n`)

@@ -22,7 +22,9 @@ export async function startApp(opts: { port: number, env: Record<string, string>
   const entry = resolve(root, '.output/server/index.mjs')
   if (!existsSync(entry)) throw new Error('The app is not built yet: run `npx nuxt build` first.')
   const log = openSync(opts.logFile, 'a')
-  const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, entry], {
+  // BENCH_CPU_PROF=dir: the server writes a V8 CPU profile there when it stops (for reading a bench run).
+  const prof = process.env.BENCH_CPU_PROF ? ['--cpu-prof', `--cpu-prof-dir=${resolve(root, process.env.BENCH_CPU_PROF)}`] : []
+  const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, ...prof, entry], {
     cwd: root,
     env: { ...process.env, ...SERVER_MALLOC_ENV, ...opts.env, HOST: '127.0.0.1', PORT: String(opts.port), NODE_ENV: 'production' },
     stdio: ['ignore', log, log],

@@ -5,6 +5,15 @@ import type { Role } from '../../shared/roles'
 
 export interface CurrentUser { id: number, name: string, email: string, role: Role }
 
+type UserRow = typeof tables.users.$inferSelect
+/** The account row `requireUser` read for a request, so that a route needs not read it again. */
+const accountRows = new WeakMap<H3Event, UserRow>()
+
+/** The signed-in account's row as `requireUser` read it in this request (call after it). */
+export function signedInAccount(event: H3Event): Pick<UserRow, 'dateOfBirth' | 'emailVerifiedAt'> | undefined {
+  return accountRows.get(event)
+}
+
 /**
  * The signed-in user, re-read from the database on every call so that a disabled account or a
  * changed role takes effect at once. 401 when nobody is signed in, and when the cookie's sign-in
@@ -24,6 +33,7 @@ export async function requireUser(event: H3Event): Promise<CurrentUser> {
     await clearUserSession(event)
     throw createError({ status: 401, statusText: 'Signed out', message: 'Your session has ended. Sign in again.' })
   }
+  accountRows.set(event, row)
   const user: CurrentUser = { id: row.id, name: row.name, email: row.email, role: row.role }
   if (session.user?.role !== user.role || session.user?.name !== user.name) await setUserSession(event, { user })
   return user

@@ -119,5 +119,5 @@ export async function appliedCalibrations(venue: Pick<Venue, 'id' | 'calibration
 
 /** Turns the venue's calibration on or off; predictions follow on the next read. */
 export async function setCalibrationEnabled(venueId: number, enabled: boolean): Promise<void> {
-  await useDb().update(tables.venues).set({ calibrationEnabled: enabled }).where(eq(tables.venues.id, venueId))
+  await updateVenue(venueId, { calibrationEnabled: enabled })
 }

@@ -8,7 +8,8 @@ import type { BookingCreated } from '../../../shared/types/bookings'
 export default defineEventHandler(async (event): Promise<BookingCreated> => {
   const user = await requireRole(event, 'guest')
   const input = await readBodyAs(event, bookingCreateSchema)
-  const { booking, checkoutUrl, resumed } = await createBookingHold(user, input)
+  const { booking, session, flightName, venue, checkoutUrl, resumed } = await createBookingHold(user, input, signedInAccount(event))
   setResponseStatus(event, resumed ? 200 : 201)
-  return { booking: await loadGuestBooking(user.id, booking.id), checkoutUrl, resumed }
+  // Built from the rows the hold already read: no second read of what it just wrote.
+  return { booking: bookingView(booking, session, flightName, venue), checkoutUrl, resumed }
 })

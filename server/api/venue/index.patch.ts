@@ -1,4 +1,3 @@
-import { eq } from 'drizzle-orm'
 import { venueSchema } from '../../../shared/schemas/venue'
 import type { PublicVenue } from '../../../shared/types/venue'
 
@@ -7,7 +6,7 @@ export default defineEventHandler(async (event): Promise<PublicVenue> => {
   await requireRole(event, 'manager')
   const input = await readBodyAs(event, venueSchema)
   const venue = await getVenue()
-  await useDb().update(tables.venues).set(input).where(eq(tables.venues.id, venue.id))
+  await updateVenue(venue.id, input)
   const { createdAt, updatedAt, ...updated } = await getVenue()
   return updated
 })

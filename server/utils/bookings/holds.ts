@@ -4,12 +4,14 @@ import { DateTime } from 'luxon'
 import type { Booking } from '../../db/schema/bookings'
 import type { TastingSession } from '../../db/schema/sessions'
 import type { Venue } from '../../db/schema/venues'
+import type { User } from '../../db/schema/users'
 import type { CurrentUser } from '../auth'
 import type { z } from 'zod'
 import type { bookingCreateSchema } from '../../../shared/schemas/bookings'
 import { ageOn } from '../../../shared/schemas/auth'
 import { venueContactText } from '../../../shared/venueContact'
 import { PARTY_MAX } from '../../../shared/bookings'
+import { countSeats } from '../../../shared/seats'
 
 /**
  * What one guest may keep unpaid at once, so that nobody can sit on a venue's seats: at most
@@ -26,36 +28,46 @@ type BookingInput = z.output<typeof bookingCreateSchema>
 /** How long a second request for the same hold waits for the first to open its payment page. */
 const CHECKOUT_WAIT_MS = 10_000
 
-export interface BookingHold { booking: Booking, checkoutUrl: string, resumed: boolean }
+/** A hold and the rows it was decided on, so that the answer needs no second read. */
+export interface BookingHold { booking: Booking, session: TastingSession, flightName: string, venue: Venue, checkoutUrl: string, resumed: boolean }
 
 /**
  * Holds seats and opens a Checkout Session. The payment provider is called only after the
  * transaction commits; if that call fails the hold is released and the guest gets a 503.
  *
- * The transaction locks the guest's own row first, and under that lock alone finds the guest's
- * live hold in this session (a second request, Back from the payment page, another tab: answered
- * with that hold, never a second one, since the guest's requests queue on their row) and counts
- * their unpaid holds. Only then does it lock the session row, which every booking of the session
- * waits for: under it the session's state and the seats are read, the run-out holds released
- * and the hold inserted, so that the lock is held for as few round trips as possible.
+ * The transaction locks the guest's own row first, and with it (one statement) their live holds:
+ * under that lock alone it finds the guest's live hold in this session (a second request, Back
+ * from the payment page, another tab: answered with that hold, never a second one, since the
+ * guest's requests queue on their row) and counts their unpaid holds. Only then does it lock the
+ * session row, which every booking of the session waits for: under it the session's state and the
+ * seats are read, the run-out holds released and the hold inserted, so that the lock is held for
+ * as few round trips as possible.
  *
  * Requests for one session take their turn in this process first (`inSessionQueue`), so those
  * waiting for its lock hold no database connection. A request the seats cannot take is refused
- * before any lock, from a plain read: a refusal needs no lock to be right (it writes nothing), and
- * the seats it saw were taken an instant before. Whatever that read says, a hold is only ever
- * inserted after the count under the lock.
+ * before any lock, from plain reads made at once: a refusal needs no lock to be right (it writes
+ * nothing), and the seats it saw were taken an instant before. Whatever those reads say, a hold is
+ * only ever inserted after the count under the lock.
+ *
+ * `account` is the guest's row as the sign-in check read it in this request (read again if absent).
  */
-export async function createBookingHold(user: CurrentUser, input: BookingInput): Promise<BookingHold> {
+export async function createBookingHold(user: CurrentUser, input: BookingInput, account?: Pick<User, 'dateOfBirth' | 'emailVerifiedAt'>): Promise<BookingHold> {
   const db = useDb()
   const { booking: cfg } = useRuntimeConfig()
-  // Independent reads at once: each round trip counts when the database is busy.
-  const [venue, [account], [found]] = await Promise.all([
+  const now = new Date()
+  const b = tables.bookings
+  const liveOwnHold = and(eq(b.sessionId, input.sessionId), eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now))
+  // Every read before the locks at once (one round trip): the venue is kept in memory, the seat
+  // facts need only the session's id, and a guest with a live hold here is answered with it below.
+  const [venue, me, [found], [probe], facts] = await Promise.all([
     getVenue(),
-    db.select({ dateOfBirth: tables.users.dateOfBirth, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)),
+    account ?? db.select({ dateOfBirth: tables.users.dateOfBirth, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)).then(r => r[0]),
     db.select().from(tables.tastingSessions).where(eq(tables.tastingSessions.id, input.sessionId)),
+    db.select({ id: b.id }).from(b).where(liveOwnHold).limit(1),
+    loadSeatFacts(db, [{ id: input.sessionId }], now),
   ])
-  if (!account?.emailVerifiedAt) addressNotConfirmed(user)
-  if (account?.dateOfBirth && account.dateOfBirth !== input.dateOfBirth) {
+  if (!me?.emailVerifiedAt) addressNotConfirmed(user)
+  if (me.dateOfBirth && me.dateOfBirth !== input.dateOfBirth) {
     invalidFields({ dateOfBirth: `This is not the date of birth on your account. If your account has it wrong, please contact ${venueContactText(venue)}.` })
   }
   // Another venue's session is "no such session", like a missing one.
@@ -65,26 +77,24 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
   if (ageOn(input.dateOfBirth, sessionDay) < venue.legalAge) {
     invalidFields({ dateOfBirth: `You must be ${venue.legalAge} or older on the day of the session to book. Local law sets this age and our hosts follow it.` })
   }
-
-  const now = new Date()
-  const holdMs = Math.max(1, Number(cfg.holdMinutes)) * 60_000
-  const b = tables.bookings
-  const liveOwnHold = and(eq(b.sessionId, pre.id), eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now))
-  // Refusals that need no lock: a guest with a live hold here is answered with it below instead.
-  const [[probe], counts] = await Promise.all([db.select({ id: b.id }).from(b).where(liveOwnHold).limit(1), loadSeatCounts(db, [pre], now)])
   if (!probe) {
     refuseUnbookable(pre, now)
-    const left = counts.get(pre.id)!.seatsLeft
+    const left = countSeats(pre.seats, facts.get(pre.id) ?? []).seatsLeft
     if (input.partySize > left) refuseSeats(left)
   }
 
+  const holdMs = Math.max(1, Number(cfg.holdMinutes)) * 60_000
   const held = await inSessionQueue(pre.id, () => bookingTransaction(async (tx) => {
-    // The guest's own row first: their requests in parallel queue here, and the unpaid holds they
-    // already have are counted one request at a time.
-    const [me] = await tx.select({ id: tables.users.id, email: tables.users.email, emailVerifiedAt: tables.users.emailVerifiedAt }).from(tables.users).where(eq(tables.users.id, user.id)).for('update')
-    if (!me?.emailVerifiedAt) addressNotConfirmed(user)
-    // The guest's live holds, all sessions: the one here (if any) is resumed, the rest are counted.
-    const live = await tx.select().from(b).where(and(eq(b.userId, user.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now))).orderBy(desc(b.id)).for('update')
+    // The guest's own row and their live holds (all sessions), locked in one statement: their
+    // requests in parallel queue here, and the unpaid holds they already have are counted one
+    // request at a time. The one here (if any) is resumed, the rest are counted.
+    const mine = await tx.select({ email: tables.users.email, emailVerifiedAt: tables.users.emailVerifiedAt, hold: b })
+      .from(tables.users)
+      .leftJoin(b, and(eq(b.userId, tables.users.id), eq(b.state, 'held'), gt(b.holdExpiresAt, now)))
+      .where(eq(tables.users.id, user.id)).orderBy(desc(b.id)).for('update')
+    const row = mine[0]
+    if (!row?.emailVerifiedAt) addressNotConfirmed(user)
+    const live = mine.flatMap(r => (r.hold ? [r.hold] : []))
     const own = live.find(h => h.sessionId === pre.id)
     if (own) {
       if (own.partySize !== input.partySize) {
@@ -93,7 +103,7 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
           { booking: { id: own.id, partySize: own.partySize, checkoutUrl: own.checkoutUrl } },
         )
       }
-      return { bookingId: own.id, resumed: true, staleCheckouts: [] as string[] }
+      return { booking: own as Booking | undefined, bookingId: own.id, session: pre, resumed: true, staleCheckouts: [] as string[] }
     }
     const seats = live.reduce((n, h) => n + h.partySize, 0)
     if (live.length >= UNPAID_HOLDS_PER_GUEST) {
@@ -102,7 +112,7 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     if (seats + input.partySize > UNPAID_SEATS_PER_GUEST) {
       conflict(`You already hold ${seats} unpaid seat${seats === 1 ? '' : 's'}; together with these that would be more than ${UNPAID_SEATS_PER_GUEST}. Finish paying for them, or give some back, first.`)
     }
-    if (!account?.dateOfBirth) await tx.update(tables.users).set({ dateOfBirth: input.dateOfBirth }).where(eq(tables.users.id, user.id))
+    if (!me.dateOfBirth) await tx.update(tables.users).set({ dateOfBirth: input.dateOfBirth }).where(eq(tables.users.id, user.id))
 
     const session = await lockSessionRow(tx, input.sessionId)
     refuseUnbookable(session, now)
@@ -110,29 +120,39 @@ export async function createBookingHold(user: CurrentUser, input: BookingInput):
     if (input.partySize > count.seatsLeft) refuseSeats(count.seatsLeft)
     const values = {
       venueId: venue.id, sessionId: session.id, userId: user.id, reference: newBookingReference(), state: 'held' as const,
-      partySize: input.partySize, contactName: input.contactName, contactEmail: me.email, contactPhone: input.contactPhone, notes: input.notes ?? null,
+      partySize: input.partySize, contactName: input.contactName, contactEmail: row.email, contactPhone: input.contactPhone, notes: input.notes ?? null,
       ageConfirmed: input.ageConfirmed, unitPriceMinor: session.priceMinor, amountMinor: session.priceMinor * input.partySize,
       currency: session.currency, holdExpiresAt: new Date(now.getTime() + holdMs),
     }
-    const [row] = await tx.insert(b).values(values).$returningId()
-    return { bookingId: row!.id, resumed: false, staleCheckouts }
+    const [inserted] = await tx.insert(b).values(values).$returningId()
+    return { booking: undefined as Booking | undefined, bookingId: inserted!.id, session, resumed: false, staleCheckouts }
   }))
-  // Read back after the commit, outside the locks.
-  const [[booking], flightName] = await Promise.all([db.select().from(b).where(eq(b.id, held.bookingId)), flightNameOf(pre.flightId)])
-  if (!booking) throw paymentUnavailable()
   void expireCheckoutSessions(held.staleCheckouts)
-  if (held.resumed) return { booking, checkoutUrl: await paymentPageOf(booking), resumed: true }
+  const session = held.session
+  if (held.booking) {
+    // A hold found again (read under the lock): only the flight's name is left to read.
+    const flightName = await flightNameOf(pre.flightId)
+    return { booking: held.booking, session, flightName, venue, checkoutUrl: await paymentPageOf(held.booking), resumed: true }
+  }
+  // Read back after the commit, outside the locks, with the flight's name in the same statement.
+  const [back] = await db.select({ booking: b, flightName: tables.flights.name }).from(b)
+    .leftJoin(tables.flights, eq(tables.flights.id, session.flightId))
+    .where(eq(b.id, held.bookingId))
+  if (!back) throw paymentUnavailable()
+  const { booking } = back
+  const flightName = back.flightName ?? 'Tasting flight'
 
   if (booking.amountMinor === 0) {
     // A free session needs no payment: the hold is confirmed at once.
     await confirmBookingPaid(booking.id, { amountPaid: 0, paymentIntentId: null })
-    return { booking, checkoutUrl: appLink(`/bookings/${booking.id}?paid=1`), resumed: false }
+    const [confirmed] = await db.select().from(b).where(eq(b.id, booking.id))
+    return { booking: confirmed ?? booking, session, flightName, venue, checkoutUrl: appLink(`/bookings/${booking.id}?paid=1`), resumed: false }
   }
   try {
-    const checkout = await openCheckout(venue, booking, pre, flightName)
+    const checkout = await openCheckout(venue, booking, session, flightName)
     await db.update(b).set({ checkoutSessionId: checkout.id, checkoutUrl: checkout.url })
       .where(and(eq(b.id, booking.id), eq(b.state, 'held')))
-    return { booking: { ...booking, checkoutSessionId: checkout.id, checkoutUrl: checkout.url }, checkoutUrl: checkout.url!, resumed: false }
+    return { booking: { ...booking, checkoutSessionId: checkout.id, checkoutUrl: checkout.url }, session, flightName, venue, checkoutUrl: checkout.url!, resumed: false }
   }
   catch (err) {
     console.error(`[bookings] checkout for booking ${booking.id} failed:`, (err as Error).message)

@@ -16,7 +16,8 @@ export async function bookingMailContext(venue: Venue, booking: Booking, session
   return { venue, booking, session, flightName: flightName ?? await flightNameOf(session.flightId) }
 }
 
-function bookingView(b: Booking, s: TastingSession, flightName: string, venue: Venue, now = new Date()): BookingView {
+/** A booking as its guest sees it, from rows the caller has already read. */
+export function bookingView(b: Booking, s: TastingSession, flightName: string, venue: Venue, now = new Date()): BookingView {
   const deadline = bookingCancelDeadline(venue, s)
   const holdActive = b.state === 'held' && b.holdExpiresAt.getTime() > now.getTime()
   return {
