@@ -53,6 +53,8 @@ export const bookings = mysqlTable('bookings', {
   index('bookings_session_state_idx').on(t.sessionId, t.state),
   index('bookings_user_idx').on(t.userId),
   index('bookings_state_hold_idx').on(t.state, t.holdExpiresAt),
+  // Bookings by when they were made (takings and bookings over a range of days, the report's order).
+  index('bookings_venue_created_idx').on(t.venueId, t.createdAt),
 ])
 
 /**

@@ -24,4 +24,8 @@ export const outbox = mysqlTable('outbox', {
   nextAttemptAt: utcDatetime('next_attempt_at').notNull(),
   sentAt: utcDatetime('sent_at'),
   ...timestamps,
-}, t => [index('outbox_due_idx').on(t.status, t.nextAttemptAt)])
+}, t => [
+  index('outbox_due_idx').on(t.status, t.nextAttemptAt),
+  // The overview's counts by status and its messages stuck since before a time: years of sent mail are not read.
+  index('outbox_status_created_idx').on(t.status, t.createdAt),
+])
