@@ -33,3 +33,6 @@ export interface ProductFields {
   allergens: Allergen[]
   bottleSizeMl: number
 }
+
+/** Most products the public glass page explains: a page a guest reads, not the whole cellar. */
+export const GLASS_PAGE_PRODUCTS_MAX = 24

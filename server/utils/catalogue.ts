@@ -1,8 +1,9 @@
-import { and, desc, eq, inArray } from 'drizzle-orm'
+import { and, asc, desc, eq, inArray } from 'drizzle-orm'
 import type { Product, ProductMeasurement } from '../db/schema/products'
 import type { Venue } from '../db/schema/venues'
 import type { Role } from '../../shared/roles'
 import { DEFAULT_TASTING_POUR_ML, drinkKindOf } from '../../shared/pours'
+import { GLASS_PAGE_PRODUCTS_MAX } from '../../shared/products'
 import type { MeasurementView, ProductView } from '../../shared/types/products'
 
 export interface ProductWithMeasurement extends Product { current: ProductMeasurement }
@@ -31,6 +32,26 @@ export async function loadProducts(venueId: number, opts: { ids?: number[], hist
     if (!list?.[0]) return []
     return [{ ...p, current: list[0], ...(opts.history ? { history: list } : {}) }]
   })
+}
+
+/**
+ * The products the public glass page explains: the active ones poured in the venue's published
+ * flights (what a guest can taste here), or, with no flight published, its active products; at most
+ * GLASS_PAGE_PRODUCTS_MAX either way, so a venue with a large catalogue still gets a page of a size a
+ * guest reads (and the server computes a bounded number of pours).
+ */
+export async function glassPageProducts(venueId: number): Promise<ProductWithMeasurement[]> {
+  const db = useDb()
+  const p = tables.products
+  const poured = await db.selectDistinct({ id: p.id }).from(tables.flightPours)
+    .innerJoin(tables.flights, eq(tables.flights.id, tables.flightPours.flightId))
+    .innerJoin(p, eq(p.id, tables.flightPours.productId))
+    .where(and(eq(tables.flights.venueId, venueId), eq(tables.flights.status, 'published'), eq(p.status, 'active')))
+    .orderBy(asc(p.id)).limit(GLASS_PAGE_PRODUCTS_MAX)
+  const ids = poured.length
+    ? poured
+    : await db.select({ id: p.id }).from(p).where(and(eq(p.venueId, venueId), eq(p.status, 'active'))).orderBy(asc(p.id)).limit(GLASS_PAGE_PRODUCTS_MAX)
+  return loadProducts(venueId, { ids: ids.map(r => r.id) })
 }
 
 export async function loadProduct(venueId: number, id: number, history = false) {

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { Client } from '../support/http'
+import { signedIn } from '../support/people'
+import { GLASS_PAGE_PRODUCTS_MAX } from '../../shared/products'
 
 const anon = new Client()
 
@@ -160,6 +162,24 @@ describe('GET /api/science/products', () => {
     expect(gin.abvPctVol).toBe(43)
     expect(gin.costPerBottleMinor).toBeUndefined()
     expect(gin.description.join(' ')).toMatch(/quality/)
+  })
+
+  it('explains the bottles poured in published flights, not the rest of the catalogue', async () => {
+    const manager = await signedIn('manager')
+    const code = `GLASS-${Date.now().toString(36)}`
+    const made = await manager.post('/api/products', {
+      code, kind: 'spirit', name: `Cellar-only Rum ${code}`, producer: 'Test Cellar', servingTempC: 18, allergens: [], bottleSizeMl: 700, costPerBottleMinor: 2000,
+      measurement: { abvPctVol: 40, residualSugarGL: 0, lab: 'Test Lab', method: 'Densitometry', measuredOn: '2026-10-01' },
+    })
+    expect(made.status, JSON.stringify(made.body)).toBe(201)
+    const listed = (await anon.get('/api/science/products')).body as { id: number, name: string }[]
+    expect(listed.map(p => p.name)).not.toContain(`Cellar-only Rum ${code}`)
+    expect(listed.length).toBeLessThanOrEqual(GLASS_PAGE_PRODUCTS_MAX)
+    // Every one listed is poured in a published flight.
+    const published = (await anon.get('/api/flights/published')).body as { id: number }[]
+    const poured = new Set<string>()
+    for (const f of published) for (const p of (await anon.get(`/api/flights/${f.id}`)).body.pours as { product: { name: string } }[]) poured.add(p.product.name)
+    for (const p of listed) expect(poured.has(p.name), p.name).toBe(true)
   })
 
   it.each([

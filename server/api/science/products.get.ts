@@ -5,15 +5,16 @@ import { productsQuerySchema } from '../../../shared/schemas/science'
 import type { ProductOnCurve } from '../../../shared/types/science'
 
 /**
- * The venue's active products as the glass model sees them at their serving temperature, in the
- * venue's usual room air, for the public page that explains the effect. Only what a label or a
+ * The products the public page that explains the effect shows (`glassPageProducts`: those poured
+ * in published flights, at most GLASS_PAGE_PRODUCTS_MAX, shared/products.ts) as the glass model sees them at their
+ * serving temperature, in the venue's usual room air. Only what a label or a
  * menu shows is public. It reads no query; any key is refused.
  */
 export default defineEventHandler(async (event): Promise<ProductOnCurve[]> => {
   await readQueryAs(event, productsQuerySchema)
   const venue = await getVenue()
   const room = venueRoom(venue).air
-  const products = (await loadProducts(venue.id)).filter(p => p.status === 'active')
+  const products = await glassPageProducts(venue.id)
   return products.map((p) => {
     const film = computeFilm({ abvPctVol: p.current.abvPctVol, tempC: p.servingTempC, sugarGL: p.current.residualSugarGL, wallAngleDeg: DEFAULT_WALL_ANGLE_DEG, room, kind: drinkKindOf(p.kind) })
     return {
