@@ -13,6 +13,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs'
 import { cpus, loadavg } from 'node:os'
 import { resolve } from 'node:path'
 import autocannon from 'autocannon'
+import { BROWSER, answerCounts, benchClient } from './http'
 import { DateTime } from 'luxon'
 import mysql from 'mysql2/promise'
 import { databaseUrl, resetDatabase, startDb, stopDb, type DbInstance } from '../scripts/lib/mariadb'
@@ -32,8 +33,6 @@ const GUESTS = 120
 const HOLDS_PER_GUEST = 3
 const root = resolve(import.meta.dirname, '..')
 const base = `http://127.0.0.1:${PORTS.app}`
-/** What every browser sends with a page request (Fetch standard; common practice, no source). */
-const BROWSER = { 'accept-encoding': 'gzip, deflate, br', 'accept': 'text/html' }
 const SLOW_LOG = resolve(root, '.data/growth-slow.log')
 const socket = resolve(root, '.data', GROWTH_DB.name, 'run', 'mysqld.sock')
 
@@ -44,19 +43,7 @@ function asRoot(sql: string): string[][] {
   return r.stdout.split('\n').filter(Boolean).map(l => l.split('\t'))
 }
 
-async function call(path: string, init: { method?: string, body?: unknown, cookie?: string, ip?: string } = {}) {
-  const res = await fetch(`${base}${path}`, {
-    method: init.method ?? 'GET',
-    headers: { 'content-type': 'application/json', ...(init.cookie ? { cookie: init.cookie } : {}), 'x-forwarded-for': init.ip ?? '10.9.0.1' },
-    body: init.body === undefined ? undefined : JSON.stringify(init.body),
-  })
-  const cookie = res.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
-  const text = await res.text()
-  let body: any = text
-  try { body = JSON.parse(text) }
-  catch { /* not JSON */ }
-  return { status: res.status, body, cookie, bytes: text.length }
-}
+const call = benchClient(base)
 
 export interface GrowthRow { route: string, p50: number, p99: number, rps: number, codes: string, bytes: number, crashed?: string }
 /** One route to measure: its name, its request, and (for EXPLAIN) one plain GET of it. */
@@ -64,8 +51,7 @@ export interface GrowthTarget { route: string, opts: autocannon.Options, probe?:
 
 async function measure(t: GrowthTarget): Promise<GrowthRow> {
   const result = await autocannon({ duration: SECONDS, connections: 10, ...t.opts })
-  const codes = Object.entries((result as unknown as { statusCodeStats?: Record<string, { count: number }> }).statusCodeStats ?? {})
-    .map(([code, s]) => `${code}×${s.count}`).join(', ')
+  const codes = answerCounts(result)
   const row = { route: t.route, p50: result.latency.p50, p99: result.latency.p99, rps: result.requests.average, codes, bytes: Math.round(result.throughput.total / Math.max(1, result.requests.total)) }
   console.log(`[growth] ${t.route}: ${row.rps.toFixed(0)} req/s, p50 ${row.p50} ms, p99 ${row.p99} ms (${codes}; ${row.bytes} B each; errors ${result.errors}, timeouts ${result.timeouts})`)
   return row

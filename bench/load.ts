@@ -14,6 +14,7 @@ import { mkdirSync, readFileSync } from 'node:fs'
 import { cpus, loadavg } from 'node:os'
 import { resolve } from 'node:path'
 import autocannon from 'autocannon'
+import { BROWSER, answerCounts, benchClient } from './http'
 import { DateTime } from 'luxon'
 import mysql from 'mysql2/promise'
 import { databaseUrl, resetDatabase, startDb, stopDb, type DbInstance } from '../scripts/lib/mariadb'
@@ -37,23 +38,9 @@ const GUESTS = 400
 const HOLDS_PER_GUEST = 3
 const BOOKING_SESSIONS = 12
 const root = resolve(import.meta.dirname, '..')
-/** What every browser sends with a page request (Fetch standard; common practice, no source). */
-const BROWSER = { 'accept-encoding': 'gzip, deflate, br', 'accept': 'text/html' }
 const base = `http://127.0.0.1:${PORTS.app}`
 
-async function call(path: string, init: { method?: string, body?: unknown, cookie?: string, ip?: string } = {}) {
-  const res = await fetch(`${base}${path}`, {
-    method: init.method ?? 'GET',
-    headers: { 'content-type': 'application/json', ...(init.cookie ? { cookie: init.cookie } : {}), 'x-forwarded-for': init.ip ?? '10.9.0.1' },
-    body: init.body === undefined ? undefined : JSON.stringify(init.body),
-  })
-  const cookie = res.headers.getSetCookie().map(c => c.split(';')[0]).join('; ')
-  const text = await res.text()
-  let body: any = text
-  try { body = JSON.parse(text) }
-  catch { /* not JSON */ }
-  return { status: res.status, body, cookie }
-}
+const call = benchClient(base)
 
 /** The server's resident memory, sampled every 200 ms from /proc (Linux). */
 function memorySampler(pid: number) {
@@ -70,8 +57,7 @@ interface Row { name: string, rps: number, p50: number, p99: number, codes: stri
 
 async function run(name: string, opts: autocannon.Options, goal?: Row['goal']): Promise<Row> {
   const result = await autocannon({ duration: SECONDS, connections: 10, ...opts, url: opts.url ?? base })
-  const codes = Object.entries((result as unknown as { statusCodeStats?: Record<string, { count: number }> }).statusCodeStats ?? {})
-    .map(([code, s]) => `${code}×${s.count}`).join(', ')
+  const codes = answerCounts(result)
   const row = { name, rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, codes, goal }
   console.log(`[bench] ${name}: ${row.rps.toFixed(0)} req/s, p50 ${row.p50} ms, p99 ${row.p99} ms (${codes}; errors ${result.errors}, timeouts ${result.timeouts})`)
   return row
