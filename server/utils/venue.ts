@@ -6,16 +6,17 @@ import type { Venue } from '../db/schema/venues'
  * POST twice), and it changes only through `updateVenue` here, which drops the kept copy at once. A
  * read that was under way while the venue changed does not store what it read (the generation
  * moved on), so a change is never hidden by an older copy. The TTL only bounds how long a change
- * made outside this process (a restored dump) takes to show.
+ * made outside this process (a restored dump) takes to show. `fresh` reads the database (GET
+ * /api/venue does, so the pages and a stopped database are seen as they are).
  */
 const VENUE_TTL_MS = 2_000
 let kept: { venue: Readonly<Venue>, until: number } | undefined
 let generation = 0
 
 /** The venue (one per installation for now; the tables already carry venue_id). */
-export async function getVenue(): Promise<Venue> {
+export async function getVenue(opts: { fresh?: boolean } = {}): Promise<Venue> {
   const now = Date.now()
-  if (kept && kept.until > now) return kept.venue
+  if (!opts.fresh && kept && kept.until > now) return kept.venue
   const started = generation
   const [venue] = await useDb().select().from(tables.venues).orderBy(asc(tables.venues.id)).limit(1)
   if (!venue) throw createError({ status: 503, statusText: 'Not set up', message: 'The venue has not been set up yet.' })
