@@ -13,7 +13,7 @@ import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs'
 import { cpus, loadavg } from 'node:os'
 import { resolve } from 'node:path'
 import autocannon from 'autocannon'
-import { BROWSER, answerCounts, benchClient } from './http'
+import { BROWSER, answerCounts, benchAppEnv, benchClient, memorySampler } from './http'
 import { DateTime } from 'luxon'
 import mysql from 'mysql2/promise'
 import { databaseUrl, resetDatabase, startDb, stopDb, type DbInstance } from '../scripts/lib/mariadb'
@@ -210,36 +210,19 @@ function slowLogTop(limit = 10): string[] {
     .map(([shape, g]) => `| ${g.count} | ${(g.total * 1000).toFixed(0)} | ${(g.max * 1000).toFixed(0)} | ${g.rows} | \`${shape.length > 200 ? `${shape.slice(0, 200)}…` : shape}\` |`)
 }
 
-/** The server's peak resident memory, sampled every 200 ms from /proc (Linux). */
-function peakMemory(pid: number) {
-  let peak = 0
-  const timer = setInterval(() => {
-    try { peak = Math.max(peak, Number(/VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? 0) / 1024) }
-    catch { /* the process ended */ }
-  }, 200)
-  return { peak: () => peak, stop: () => clearInterval(timer) }
-}
-
 async function main() {
   mkdirSync(resolve(root, '.data'), { recursive: true })
   await startDb(GROWTH_DB)
   resetDatabase(GROWTH_DB)
   const mail = await startMailFake({ smtpPort: PORTS.smtp, httpPort: PORTS.mailHttp, dir: resolve(root, '.data/mail-growth') })
   const stripe = await startStripeFake({ port: PORTS.stripe, webhookUrl: `${base}/webhooks/stripe`, webhookSecret: localSecrets('bench').stripeWebhookSecret, publicUrl: `http://127.0.0.1:${PORTS.stripe}` })
-  const env = {
-    NUXT_APP_URL: base, NUXT_DEMO_SEED: 'true', NUXT_TRUSTED_PROXY_HOPS: '1',
-    NUXT_SESSION_PASSWORD: localSecrets('bench').sessionPassword,
-    NUXT_DATABASE_URL: databaseUrl(GROWTH_DB), NUXT_SMTP_HOST: '127.0.0.1', NUXT_SMTP_PORT: String(PORTS.smtp),
-    NUXT_STRIPE_SECRET_KEY: localSecrets('bench').stripeSecretKey, NUXT_STRIPE_WEBHOOK_SECRET: localSecrets('bench').stripeWebhookSecret,
-    NUXT_STRIPE_API_HOST: '127.0.0.1', NUXT_STRIPE_API_PORT: String(PORTS.stripe), NUXT_STRIPE_API_PROTOCOL: 'http',
-    NUXT_STRIPE_CHECKOUT_ORIGIN: `http://127.0.0.1:${PORTS.stripe}`,
-  }
+  const env = benchAppEnv(base, databaseUrl(GROWTH_DB), PORTS)
   const logFile = resolve(root, '.data/app-growth.log')
   let app: RunningApp = await startApp({ port: PORTS.app, logFile, env })
   const db = await mysql.createConnection({ uri: databaseUrl(GROWTH_DB), timezone: 'Z' })
   try {
     const loadBefore = loadavg()
-    let memory = peakMemory(app.child.pid!)
+    let memory = memorySampler(app.child.pid!)
     let crashedPeak = 0
     const demo = await measureGrowthRoutes(db, 0)
     const demoPeak = memory.peak()
@@ -256,7 +239,7 @@ async function main() {
     rmSync(SLOW_LOG, { force: true })
     asRoot(`SET GLOBAL slow_query_log_file = '${SLOW_LOG}'; SET GLOBAL long_query_time = 0.05; SET GLOBAL log_queries_not_using_indexes = 1; SET GLOBAL slow_query_log = 1`)
     app = await startApp({ port: PORTS.app, logFile, env })
-    memory = peakMemory(app.child.pid!)
+    memory = memorySampler(app.child.pid!)
     // A server that died under a route (its heap bound, SERVER_NODE_FLAGS) is noted on that route
     // and started again, so the routes after it are still measured.
     const busy = await measureGrowthRoutes(db, 1, async (row) => {
@@ -267,7 +250,7 @@ async function main() {
       crashedPeak = Math.max(crashedPeak, memory.peak())
       memory.stop()
       app = await startApp({ port: PORTS.app, logFile, env })
-      memory = peakMemory(app.child.pid!)
+      memory = memorySampler(app.child.pid!)
     })
     const busyPeak = Math.max(crashedPeak, memory.peak())
     memory.stop()

@@ -1,5 +1,7 @@
-/** What the benches share: a JSON client for the server under test and autocannon's answer counts. */
+/** What the benches share: the server's settings, a JSON client, autocannon's answer counts, a memory sampler. */
+import { readFileSync } from 'node:fs'
 import type autocannon from 'autocannon'
+import { localSecrets } from '../scripts/lib/secrets'
 
 /** What every browser sends with a page request (Fetch standard; common practice, no source). */
 export const BROWSER = { 'accept-encoding': 'gzip, deflate, br', 'accept': 'text/html' }
@@ -30,4 +32,28 @@ export function benchClient(base: string) {
 export function answerCounts(result: autocannon.Result): string {
   return Object.entries((result as unknown as { statusCodeStats?: Record<string, { count: number }> }).statusCodeStats ?? {})
     .map(([code, s]) => `${code}×${s.count}`).join(', ')
+}
+
+/** The built server's settings in a bench: demo data, one trusted proxy hop, the e-mail and Stripe fakes on `ports`. */
+export function benchAppEnv(base: string, databaseUrl: string, ports: { smtp: number, stripe: number }): Record<string, string> {
+  const secrets = localSecrets('bench')
+  return {
+    NUXT_APP_URL: base, NUXT_DEMO_SEED: 'true', NUXT_TRUSTED_PROXY_HOPS: '1',
+    NUXT_SESSION_PASSWORD: secrets.sessionPassword,
+    NUXT_DATABASE_URL: databaseUrl, NUXT_SMTP_HOST: '127.0.0.1', NUXT_SMTP_PORT: String(ports.smtp),
+    NUXT_STRIPE_SECRET_KEY: secrets.stripeSecretKey, NUXT_STRIPE_WEBHOOK_SECRET: secrets.stripeWebhookSecret,
+    NUXT_STRIPE_API_HOST: '127.0.0.1', NUXT_STRIPE_API_PORT: String(ports.stripe), NUXT_STRIPE_API_PROTOCOL: 'http',
+    NUXT_STRIPE_CHECKOUT_ORIGIN: `http://127.0.0.1:${ports.stripe}`,
+  }
+}
+
+/** A process's resident memory, MB, sampled every 200 ms from /proc (Linux); NaN once it has ended. */
+export function memorySampler(pid: number) {
+  const rss = () => {
+    try { return Number(/VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))?.[1] ?? Number.NaN) / 1024 }
+    catch { return Number.NaN }
+  }
+  let peak = 0
+  const timer = setInterval(() => { peak = Math.max(peak, rss() || 0) }, 200)
+  return { rss, peak: () => Math.max(peak, rss() || 0), stop: () => clearInterval(timer) }
 }

@@ -10,11 +10,11 @@
  * guest page's weight and, unless BENCH_LIGHTHOUSE=0, Lighthouse on each (median of three).
  */
 import { execSync } from 'node:child_process'
-import { mkdirSync, readFileSync } from 'node:fs'
+import { mkdirSync } from 'node:fs'
 import { cpus, loadavg } from 'node:os'
 import { resolve } from 'node:path'
 import autocannon from 'autocannon'
-import { BROWSER, answerCounts, benchClient } from './http'
+import { BROWSER, answerCounts, benchAppEnv, benchClient, memorySampler } from './http'
 import { DateTime } from 'luxon'
 import mysql from 'mysql2/promise'
 import { databaseUrl, resetDatabase, startDb, stopDb, type DbInstance } from '../scripts/lib/mariadb'
@@ -42,17 +42,6 @@ const base = `http://127.0.0.1:${PORTS.app}`
 
 const call = benchClient(base)
 
-/** The server's resident memory, sampled every 200 ms from /proc (Linux). */
-function memorySampler(pid: number) {
-  const rss = () => {
-    const m = /VmRSS:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))
-    return m ? Number(m[1]) / 1024 : Number.NaN
-  }
-  let peak = 0
-  const timer = setInterval(() => { peak = Math.max(peak, rss()) }, 200)
-  return { rss, peak: () => Math.max(peak, rss()), stop: () => clearInterval(timer) }
-}
-
 interface Row { name: string, rps: number, p50: number, p99: number, codes: string, goal?: 'page' | 'booking' }
 
 async function run(name: string, opts: autocannon.Options, goal?: Row['goal']): Promise<Row> {
@@ -72,14 +61,7 @@ async function main() {
   const app = await startApp({
     port: PORTS.app,
     logFile: resolve(root, '.data/app-bench.log'),
-    env: {
-      NUXT_APP_URL: base, NUXT_DEMO_SEED: 'true', NUXT_TRUSTED_PROXY_HOPS: '1',
-      NUXT_SESSION_PASSWORD: localSecrets('bench').sessionPassword,
-      NUXT_DATABASE_URL: databaseUrl(BENCH_DB), NUXT_SMTP_HOST: '127.0.0.1', NUXT_SMTP_PORT: String(PORTS.smtp),
-      NUXT_STRIPE_SECRET_KEY: localSecrets('bench').stripeSecretKey, NUXT_STRIPE_WEBHOOK_SECRET: localSecrets('bench').stripeWebhookSecret,
-      NUXT_STRIPE_API_HOST: '127.0.0.1', NUXT_STRIPE_API_PORT: String(PORTS.stripe), NUXT_STRIPE_API_PROTOCOL: 'http',
-      NUXT_STRIPE_CHECKOUT_ORIGIN: `http://127.0.0.1:${PORTS.stripe}`,
-    },
+    env: benchAppEnv(base, databaseUrl(BENCH_DB), PORTS),
   })
   const db = await mysql.createConnection({ uri: databaseUrl(BENCH_DB), timezone: 'Z' })
   const memory = memorySampler(app.child.pid!)
