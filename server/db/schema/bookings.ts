@@ -55,6 +55,9 @@ export const bookings = mysqlTable('bookings', {
   index('bookings_state_hold_idx').on(t.state, t.holdExpiresAt),
   // Bookings by when they were made (takings and bookings over a range of days, the report's order).
   index('bookings_venue_created_idx').on(t.venueId, t.createdAt),
+  // Ended bookings whose refund may still be owed: cancelled and not refunded, or expired with a
+  // payment and not refunded. The sweep's retry reads these few rows, not every expired hold.
+  index('bookings_refund_due_idx').on(t.state, t.refundedAt, t.paymentIntentId),
 ])
 
 /**

@@ -33,6 +33,8 @@ export const tastingSessions = mysqlTable('tasting_sessions', {
   ...timestamps,
 }, t => [
   index('sessions_venue_start_idx').on(t.venueId, t.startsAt),
+  // Sessions by start alone, across venues: the booking sweep's "starts in 24–25 hours" (reminders).
+  index('sessions_start_idx').on(t.startsAt),
   // One flight cannot be scheduled twice at the same instant (a double click on Schedule).
   uniqueIndex('sessions_flight_start_uq').on(t.flightId, t.startsAt),
   index('sessions_flight_idx').on(t.flightId),
