@@ -415,6 +415,27 @@ describe('my bookings', () => {
     expect((await outboxRows(guest.email)).filter(m => /Refund sent/.test(m.subject))).toHaveLength(1)
   })
 
+  it('a refund the payment service refused is made by the sweep once the service is back', async () => {
+    const session = await newSession(manager, { seats: 4 })
+    const guest = await newGuest('refund-retry')
+    const paid = await bookAndPay(guest, session.id, 2)
+    await setStripeFault('error')
+    try {
+      expect((await guest.client.post(`/api/bookings/${paid.id}/cancel`)).status).toBe(200)
+    }
+    finally { await setStripeFault(null) }
+    expect(await bookingRow(paid.id)).toMatchObject({ state: 'cancelled', refunded_at: null })
+    expect(await seatsLeft(session.id)).toBe(4)
+    // The sweep tries again a minute after the last try: that minute, passed in the row.
+    await withDb(c => c.query('UPDATE bookings SET updated_at = ? WHERE id = ?', [new Date(Date.now() - 120_000), paid.id]))
+    const row = await waitFor(async () => {
+      const r = await bookingRow(paid.id)
+      return r.refunded_at ? r : null
+    }, 'the sweep to make the refund')
+    expect(row).toMatchObject({ state: 'refunded', amount_refunded_minor: 7000 })
+    expect((await fakeStripe().refunds.retrieve(row.refund_id)).amount).toBe(7000)
+  })
+
   it('after the cut-off, cancelling is a 409 that states the policy', async () => {
     const session = await newSession(manager, { hoursAhead: 10 })
     const guest = await newGuest('late-cancel')
