@@ -116,6 +116,11 @@ describe('venue settings in the browser', () => {
     expect(await day(page, 'Monday').getByLabel('Closes').inputValue()).toBe('16:00')
     expect(await day(page, 'Friday').getByLabel('Closes').nth(1).inputValue()).toBe('23:30')
     await day(page, 'Sunday').getByText('Closed').waitFor()
+    // The whole form fits the phone's width: no part of it is reached by scrolling sideways.
+    const wide = await page.evaluate(() => [...document.querySelectorAll('body *')]
+      .filter(el => el.getBoundingClientRect().right > document.documentElement.clientWidth + 0.5)
+      .map(el => `${el.tagName.toLowerCase()}.${[...el.classList].join('.')} ${Math.round(el.getBoundingClientRect().right)}`))
+    expect(wide, 'elements past the right edge').toEqual([])
     await shot(page, 'venue-settings-phone')
     // What the manager sees on the phone's screen, the save button kept in reach.
     await page.getByRole('combobox', { name: 'Currency' }).scrollIntoViewIfNeeded()
