@@ -112,7 +112,10 @@ export async function measureGrowthRoutes(db: mysql.Connection, round: number, a
     { ...get(`/api/days/${hostDate}`, manager.cookie), route: 'GET /api/days/:date (host\'s busiest day)' },
     { ...get(`/api/reports/bookings?${month}`, manager.cookie), route: 'GET /api/reports/bookings (a month)' },
     { ...get(`/reports/bookings.csv?${month}`, manager.cookie), route: 'GET /reports/bookings.csv (a month)' },
-    { ...get('/api/products', manager.cookie), route: 'GET /api/products' },
+    // The products list as the manager opens it (a page of 20 by name), sorted by ABV, and searched.
+    { ...get('/api/products?status=active&pageSize=20', manager.cookie), route: 'GET /api/products (first page)' },
+    { ...get('/api/products?status=active&sort=abv&dir=desc&pageSize=20', manager.cookie), route: 'GET /api/products (by ABV)' },
+    { ...get('/api/products?q=gin&status=active&pageSize=8', manager.cookie), route: 'GET /api/products (search)' },
   ]
   for (const t of targets) {
     const res = await call(t.probe!.path, { cookie: t.probe!.cookie })

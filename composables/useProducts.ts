@@ -1,10 +1,49 @@
-import type { MeasurementInput } from '#shared/schemas/products'
-import type { ProductView } from '#shared/types/products'
+import type { MeasurementInput, ProductSort } from '#shared/schemas/products'
+import type { ProductListItem, ProductPage, ProductView } from '#shared/types/products'
+import type { ComboOption } from '~/utils/comboOptions'
 import { formatTemperature, formatVolume, temperatureFigure } from '#shared/pours'
 
-/** The venue's products, with their current numbers and derived figures. */
-export function useProductList() {
-  return useFetch<ProductView[]>('/api/products', { key: productsKey, default: () => [] })
+/** How many products a search field offers at once: the best matches, never the catalogue. */
+const PRODUCT_SEARCH_COUNT = 8
+
+/** A product as one choice of a search field: its name, then producer, vintage, ABV and code. */
+function productOption(p: ProductListItem): ComboOption {
+  const detail = [p.producer, p.vintageOrBatch, `${p.current.abvPctVol} % ABV`, p.code].filter(Boolean).join(' · ')
+  return { value: String(p.id), label: p.name, detail, search: '' }
+}
+
+/**
+ * A FormCombobox `search` over the catalogue on the server (the builder's pickers, the observations
+ * filter): the first matches by name, each product handed to `remember` so the caller can name it.
+ */
+export function productSearch(opts: { status: 'active' | 'all', remember?: (p: ProductListItem) => void }) {
+  return async (text: string): Promise<ComboOption[]> => {
+    const page = await $fetch<ProductPage>('/api/products', { query: { q: text || undefined, status: opts.status, pageSize: PRODUCT_SEARCH_COUNT } })
+    for (const p of page.items) opts.remember?.(p)
+    return page.items.map(productOption)
+  }
+}
+
+export type ProductShow = 'active' | 'retired' | 'all'
+export interface ProductListState { search: string, show: ProductShow, sort: ProductSort, desc: boolean, page: number }
+
+/**
+ * The products list as the manager pages through it: search words (sent a moment after the last
+ * key), which statuses, the sort and the page, all answered by the server a page at a time.
+ */
+export async function useProductList(pageSize = 20) {
+  const state = reactive<ProductListState>({ search: '', show: 'active', sort: 'name', desc: false, page: 1 })
+  const q = ref('')
+  let timer: ReturnType<typeof setTimeout> | undefined
+  watch(() => state.search, (text) => {
+    clearTimeout(timer)
+    timer = setTimeout(() => (q.value = text.trim()), 300)
+  })
+  if (import.meta.client) onBeforeUnmount(() => clearTimeout(timer))
+  watch([q, () => state.show, () => state.sort, () => state.desc], () => (state.page = 1))
+  const query = computed(() => ({ q: q.value || undefined, status: state.show, sort: state.sort, dir: state.desc ? 'desc' : 'asc', page: state.page, pageSize }))
+  const fetched = await useFetch<ProductPage>('/api/products', { key: productsKey, query, default: () => ({ items: [], page: 1, pageSize, total: 0, counts: { active: 0, retired: 0 } }) })
+  return { state, ...fetched }
 }
 
 /** One product with its measurement history, newest first. */

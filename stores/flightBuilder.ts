@@ -5,7 +5,7 @@ import type { ProductKind } from '#shared/products'
 import type { FlightStatus } from '#shared/flights'
 import { POURS_MAX } from '#shared/flights'
 import type { FlightPreview, FlightView, GlassView } from '#shared/types/flights'
-import type { ProductView } from '#shared/types/products'
+import type { ProductListItem, ProductPage } from '#shared/types/products'
 
 export interface BuilderPour { key: number, productId: number, volumeMl: number, glassId: number, servingTempC: number, note: string | null }
 
@@ -36,7 +36,8 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
   const error = ref('')
   const busy = ref(false)
   const dirty = ref(false)
-  const products = ref<ProductView[]>([])
+  /** The products the builder knows: the flight's own, and each one found and chosen since. */
+  const products = ref<ProductListItem[]>([])
   const glasses = ref<GlassView[]>([])
 
   const canEditPours = computed(() => status.value === 'draft' || (status.value === 'published' && !locked.value))
@@ -55,9 +56,21 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
     dirty.value = false
   }
 
-  async function loadOptions(fetcher: typeof $fetch) {
-    const [p, g] = await Promise.all([fetcher<ProductView[]>('/api/products'), fetcher<GlassView[]>('/api/glasses')])
-    products.value = p
+  /** Keeps a product found by a search, so its pour row can name it (the newest copy wins). */
+  function remember(product: ProductListItem) {
+    const at = products.value.findIndex(p => p.id === product.id)
+    if (at >= 0) products.value.splice(at, 1, product)
+    else products.value.push(product)
+  }
+
+  /** The glasses, and the products of the flight's pours (the catalogue itself is searched, never sent whole). */
+  async function loadOptions(fetcher: typeof $fetch, view: FlightView | null) {
+    const ids = [...new Set(view?.pours.map(p => p.productId) ?? [])]
+    const [p, g] = await Promise.all([
+      ids.length ? fetcher<ProductPage>('/api/products', { query: { ids: ids.join(','), pageSize: ids.length } }) : null,
+      fetcher<GlassView[]>('/api/glasses'),
+    ])
+    products.value = p?.items ?? []
     glasses.value = g
   }
 
@@ -69,8 +82,9 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
       message.value = ''
       error.value = ''
     }
-    await loadOptions(fetcher)
-    if (flightId) fromView(await fetcher<FlightView>(`/api/flights/${flightId}`))
+    const view = flightId ? await fetcher<FlightView>(`/api/flights/${flightId}`) : null
+    await loadOptions(fetcher, view)
+    if (view) fromView(view)
     else {
       id.value = null
       name.value = ''
@@ -90,9 +104,10 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
     schedulePreview()
   }
 
-  function addPour(productId: number) {
-    const product = products.value.find(p => p.id === productId)
-    if (!product || !canAddPour.value) return
+  function addPour(product: ProductListItem) {
+    if (product.status !== 'active' || !canAddPour.value) return
+    remember(product)
+    const productId = product.id
     const glass = glasses.value.find(g => GLASS_FOR_KIND[product.kind].test(g.name)) ?? glasses.value[0]
     if (!glass) return
     pours.value.push({ key: nextKey++, productId, volumeMl: DEFAULT_TASTING_POUR_ML[product.kind], glassId: glass.id, servingTempC: product.servingTempC, note: null })
@@ -175,6 +190,6 @@ export const useFlightBuilderStore = defineStore('flightBuilder', () => {
   return {
     id, name, summary, status, version, locked, sessionCount, pours, preview, previewError, errors, message, error, busy, dirty,
     products, glasses, canEditPours, canAddPour,
-    start, changed, addPour, removePour, movePour, save, publish, unpublish, retire, revise,
+    start, changed, remember, addPour, removePour, movePour, save, publish, unpublish, retire, revise,
   }
 })

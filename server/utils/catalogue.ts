@@ -1,10 +1,11 @@
-import { and, asc, desc, eq, inArray } from 'drizzle-orm'
+import { and, asc, count, desc, eq, inArray, like, or, sql, type SQL } from 'drizzle-orm'
 import type { Product, ProductMeasurement } from '../db/schema/products'
 import type { Venue } from '../db/schema/venues'
 import type { Role } from '../../shared/roles'
 import { DEFAULT_TASTING_POUR_ML, drinkKindOf } from '../../shared/pours'
 import { GLASS_PAGE_PRODUCTS_MAX } from '../../shared/products'
-import type { MeasurementView, ProductView } from '../../shared/types/products'
+import type { MeasurementView, ProductListItem, ProductPage, ProductView } from '../../shared/types/products'
+import type { ProductListQuery } from '../../shared/schemas/products'
 
 export interface ProductWithMeasurement extends Product { current: ProductMeasurement }
 
@@ -96,6 +97,58 @@ export function productView(p: ProductWithMeasurement & { history?: ProductMeasu
       room: facts.film.inputs.room,
     },
   }
+}
+
+/** `LIKE` text that matches `text` literally anywhere (its % and _ are escaped). */
+const containing = (text: string) => `%${text.replace(/[\\%_]/g, c => `\\${c}`)}%`
+
+/**
+ * One page of the venue's catalogue under the list's filters, sorted in the database, and the film
+ * model run for that page only. A sort by ABV or sugar joins each product's current measurement
+ * (the newest by measured date, then id: the same rule as `loadProducts`).
+ */
+export async function listProducts(venue: Venue, query: ProductListQuery, role: Role): Promise<ProductPage> {
+  const db = useDb()
+  const p = tables.products
+  const m = tables.productMeasurements
+  const where: SQL[] = [eq(p.venueId, venue.id)]
+  if (query.status !== 'all') where.push(eq(p.status, query.status))
+  if (query.kind) where.push(eq(p.kind, query.kind))
+  if (query.ids) where.push(inArray(p.id, query.ids))
+  if (query.q) {
+    const words = query.q.split(/\s+/).slice(0, 6)
+    for (const w of words) where.push(or(like(p.name, containing(w)), like(p.producer, containing(w)), like(p.code, containing(w)), like(p.vintageOrBatch, containing(w)))!)
+  }
+  const filter = and(...where)
+  const dir = query.dir === 'desc' ? desc : asc
+  const byMeasurement = query.sort === 'abv' || query.sort === 'sugar'
+  const column = { name: p.name, code: p.code, kind: p.kind, temp: p.servingTempC, status: p.status, updated: p.updatedAt, abv: m.abvPctVol, sugar: m.residualSugarGL }[query.sort]
+  const order = [dir(column), asc(p.name), asc(p.id)]
+  const offset = (query.page - 1) * query.pageSize
+  const pageIds = byMeasurement
+    ? db.select({ id: p.id }).from(p)
+        .innerJoin(m, eq(m.id, sql`(select c.id from ${m} c where c.product_id = ${p.id} order by c.measured_on desc, c.id desc limit 1)`))
+        .where(filter).orderBy(...order).limit(query.pageSize).offset(offset)
+    : db.select({ id: p.id }).from(p).where(filter).orderBy(...order).limit(query.pageSize).offset(offset)
+  const [ids, [matched], byStatus] = await Promise.all([
+    pageIds,
+    db.select({ n: count() }).from(p).where(filter),
+    db.select({ status: p.status, n: count() }).from(p).where(eq(p.venueId, venue.id)).groupBy(p.status),
+  ])
+  const rows = new Map((await loadProducts(venue.id, { ids: ids.map(r => r.id) })).map(r => [r.id, r]))
+  const items = ids.flatMap(({ id }) => {
+    const row = rows.get(id)
+    return row ? [productListItem(productView(row, venue, role))] : []
+  })
+  const counts = { active: 0, retired: 0 }
+  for (const r of byStatus) counts[r.status] = r.n
+  return { items, page: query.page, pageSize: query.pageSize, total: matched?.n ?? 0, counts }
+}
+
+/** A product's list row: the view without the model's whole prediction (its curves and ranges). */
+function productListItem(view: ProductView): ProductListItem {
+  const { history: _history, derived: { predictions: _predictions, room: _room, ...derived }, ...rest } = view
+  return { ...rest, derived }
 }
 
 /** 409 on the code field: another product of the venue has it. */

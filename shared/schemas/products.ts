@@ -59,3 +59,29 @@ export const productCreateSchema = productFieldsSchema.extend({ measurement: mea
  * optional fields, which would quietly bring a retired product back on every edit.
  */
 export const productPatchSchema = z.object(productFields).partial().refine(v => Object.keys(v).length > 0, { error: 'Change at least one field.' })
+
+/** The columns the products list sorts by on the server (film activity is derived, not stored). */
+export const PRODUCT_SORTS = ['name', 'code', 'kind', 'abv', 'sugar', 'temp', 'status', 'updated'] as const
+export type ProductSort = typeof PRODUCT_SORTS[number]
+const PRODUCT_PAGE_SIZE_DEFAULT = 25
+const PRODUCT_PAGE_SIZE_MAX = 100
+
+/**
+ * GET /api/products: a page of the catalogue. `q` finds words in the name, producer, vintage or
+ * code; `ids` asks for named products (the flight builder's pours); the glass model runs for the
+ * page only, so a catalogue of thousands costs what a page costs.
+ */
+export const productListQuerySchema = z.object({
+  q: z.string({ error: 'q must be text.' }).trim().max(80, { error: 'Search with at most 80 characters.' }).optional().transform(v => v || undefined),
+  status: z.enum([...PRODUCT_STATUSES, 'all'], { error: 'status is active, retired or all.' }).default('all'),
+  kind: z.enum(PRODUCT_KINDS, { error: `kind is one of ${PRODUCT_KINDS.join(', ')}.` }).optional(),
+  ids: z.string({ error: 'ids must be a list of product ids.' })
+    .regex(/^\d{1,9}(,\d{1,9}){0,99}$/, { error: 'ids is up to 100 product ids separated by commas.' })
+    .transform(s => [...new Set(s.split(',').map(Number))]).optional(),
+  sort: z.enum(PRODUCT_SORTS, { error: `sort is one of ${PRODUCT_SORTS.join(', ')}.` }).default('name'),
+  dir: z.enum(['asc', 'desc'], { error: 'dir is asc or desc.' }).default('asc'),
+  page: z.coerce.number({ error: 'page must be a number.' }).int({ error: 'page must be a whole number.' }).min(1, { error: 'Pages are numbered from 1.' }).max(10_000, { error: 'page is at most 10000.' }).default(1),
+  pageSize: z.coerce.number({ error: 'pageSize must be a number.' }).int({ error: 'pageSize must be a whole number.' })
+    .min(1, { error: 'pageSize is at least 1.' }).max(PRODUCT_PAGE_SIZE_MAX, { error: `pageSize is at most ${PRODUCT_PAGE_SIZE_MAX}.` }).default(PRODUCT_PAGE_SIZE_DEFAULT),
+})
+export type ProductListQuery = z.output<typeof productListQuerySchema>

@@ -38,5 +38,20 @@ export interface ProductView extends ProductFields {
   }
 }
 
+/** A product as the list shows it: its fields and figures, without the model's whole prediction. */
+export interface ProductListItem extends Omit<ProductView, 'history' | 'derived'> {
+  derived: Omit<ProductView['derived'], 'predictions' | 'room'>
+}
+
+/** GET /api/products: one page of the catalogue under the query's filters, and how many match. */
+export interface ProductPage {
+  items: ProductListItem[]
+  page: number
+  pageSize: number
+  total: number
+  /** Products of the venue by status, whatever the filters (the list's "Show" choice). */
+  counts: { active: number, retired: number }
+}
+
 /** What importing a lab sheet wrote (POST /api/imports/commit). */
 export interface LabSheetImported { imported: number, sheet: LabSheetKind }

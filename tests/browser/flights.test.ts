@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext } from 'playwright-core'
-import { openBrowser, shot, showCurveChart, signInThroughForm } from '../support/browser'
+import { addPourByName, openBrowser, shot, showCurveChart, signInThroughForm } from '../support/browser'
 import { DEMO_PASSWORD } from '../../server/demo/data'
 
 describe('the flight builder and the public glass page', () => {
@@ -15,10 +15,8 @@ describe('the flight builder and the public glass page', () => {
     await page.waitForURL('**/manage')
     await page.goto('/manage/flights/new')
     await page.getByLabel('Flight name').fill('Browser-built flight')
-    const add = page.getByLabel('Add a pour')
     for (const name of ['Tidewater Albariño', 'Orchard Gate Dry Cider', 'Marsh Samphire Gin']) {
-      await add.selectOption({ label: (await add.locator('option', { hasText: name }).innerText()).trim() })
-      await page.getByRole('button', { name: 'Add', exact: true }).click()
+      await addPourByName(page, name)
     }
     await page.getByText('Per guest').waitFor()
     await page.getByText('Standard drinks (14 g)').waitFor()
@@ -27,6 +25,14 @@ describe('the flight builder and the public glass page', () => {
     await page.getByRole('button', { name: 'Move pour 2 up' }).focus()
     await page.keyboard.press('Enter')
     await expect.poll(() => firstTitle.innerText()).toContain('Orchard Gate')
+    // A pour's product is changed by searching the catalogue; the live figures follow the new product.
+    const third = page.locator('ol > li').nth(2)
+    await third.getByLabel('Product', { exact: true }).fill('low tide')
+    await page.getByRole('option', { name: /^Low Tide Fortified Red/ }).click()
+    await expect.poll(() => third.locator('h3').innerText()).toMatch(/Low Tide Fortified Red[\s\S]*19\.5 % ABV/)
+    await third.getByLabel('Product', { exact: true }).fill('marsh samph')
+    await page.getByRole('option', { name: /^Marsh Samphire Gin/ }).click()
+    await expect.poll(() => third.locator('h3').innerText()).toMatch(/Marsh Samphire Gin[\s\S]*43 % ABV/)
     await page.waitForTimeout(500)
     await shot(page, 'flight-builder-new')
     await page.getByRole('button', { name: 'Save draft' }).click()
@@ -47,10 +53,8 @@ describe('the flight builder and the public glass page', () => {
   it('over the per-guest limit, the builder warns', async () => {
     const page = await context.newPage()
     await page.goto('/manage/flights/new')
-    const add = page.getByLabel('Add a pour')
     for (const name of ['Marsh Samphire Gin', 'Low Tide Fortified Red']) {
-      await add.selectOption({ label: (await add.locator('option', { hasText: name }).innerText()).trim() })
-      await page.getByRole('button', { name: 'Add', exact: true }).click()
+      await addPourByName(page, name)
     }
     await page.getByLabel('Pour (fl oz)').first().fill('6')
     await page.getByLabel('Pour (fl oz)').first().press('Tab')

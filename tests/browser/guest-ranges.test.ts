@@ -9,7 +9,7 @@ import { DEMO_PASSWORD, DEMO_PRODUCTS } from '../../server/demo/data'
 import { LIQUID_COLOUR_FILL } from '../../shared/liquidColours'
 import type { PourPage } from '../../shared/types/cards'
 import type { FlightView } from '../../shared/types/flights'
-import type { ProductView } from '../../shared/types/products'
+import type { ProductPage, ProductView } from '../../shared/types/products'
 
 /**
  * What a guest reads about the glass: the pour page a card's QR code opens shows the API's own
@@ -211,8 +211,9 @@ describe('the guest\'s pages show the model\'s ranges', () => {
       await elementShot(rows.nth(pages.findIndex(p => p.pour.kind === 'Still wine')), name)
       await shot(page, `${name}-page`)
       // A product's page: its tasting pour's ranges, as its API view gives them.
-      const products = await (await context.request.get('/api/products')).json() as ProductView[]
-      const fortified = products.find(p => p.kind === 'fortified' && p.derived.predictions.tearsExpected)!
+      const products = (await (await context.request.get('/api/products?kind=fortified&status=active&pageSize=100')).json() as ProductPage).items
+      const listed = products.find(p => p.derived.tearsExpected)!
+      const fortified = await (await context.request.get(`/api/products/${listed.id}`)).json() as ProductView
       await page.goto(`/manage/products/${fortified.id}`)
       const facts = page.locator('[data-tear-figures]')
       await facts.waitFor()
@@ -260,7 +261,7 @@ describe('the guest\'s pages show the model\'s ranges', () => {
     const page = await context.newPage()
     await signInThroughForm(page, 'manager@saltmarsh.test', DEMO_PASSWORD)
     await page.waitForURL('**/manage')
-    const products = await (await context.request.get('/api/products')).json() as ProductView[]
+    const products = (await (await context.request.get(`/api/products?q=${encodeURIComponent(albarino.pour.name)}`)).json() as ProductPage).items
     const product = products.find(p => p.name === albarino.pour.name)!
     const before = product.colour
     try {

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import sharp from 'sharp'
 import { DateTime } from 'luxon'
 import type { BrowserContext, Page } from 'playwright-core'
-import { openBrowser, payWithTestCard, shot, signInThroughForm } from '../support/browser'
+import { addPourByName, openBrowser, payWithTestCard, shot, signInThroughForm } from '../support/browser'
 import { uniqueEmail } from '../support/http'
 import { linkUrl, waitForMail } from '../support/mail'
 import { withDb } from '../support/db'
@@ -110,10 +110,8 @@ describe('one journey from invitation to printed card', () => {
 
     await page.goto('/manage/flights/new')
     await page.getByLabel('Flight name').fill(flightName)
-    const add = page.getByLabel('Add a pour')
     for (const p of products) {
-      await add.selectOption({ label: (await add.locator('option', { hasText: p.name }).innerText()).trim() })
-      await page.getByRole('button', { name: 'Add', exact: true }).click()
+      await addPourByName(page, p.name)
     }
     await page.getByText('Per guest').waitFor()
     await page.getByRole('button', { name: 'Save draft' }).click()

@@ -1,10 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext, Page } from 'playwright-core'
 import { DateTime } from 'luxon'
-import { openBrowser, shot, signInThroughForm } from '../support/browser'
+import { addPourByName, openBrowser, shot, signInThroughForm } from '../support/browser'
 import { countRows, withDb } from '../support/db'
 import { bookAndPay, bookingBody, checkoutIdOf, demoFlightId, newGuest, newSession, payCheckout, signedIn, waitForState } from '../support/booking'
-import type { Client } from '../support/http'
+import { allProducts, type Client } from '../support/http'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
 import { formatDay, formatDayTime, formatTime } from '../../shared/dates'
 import { formatMoney } from '../../shared/money'
@@ -38,11 +38,7 @@ beforeAll(async () => {
 })
 afterAll(async () => close())
 
-async function addPour(page: Page, name: string) {
-  const add = page.getByLabel('Add a pour')
-  await add.selectOption({ label: (await add.locator('option', { hasText: name }).innerText()).trim() })
-  await page.getByRole('button', { name: 'Add', exact: true }).click()
-}
+const addPour = addPourByName
 
 describe('the flight builder', () => {
   it('asks before leaving unsaved pours, in the app and when the tab closes, and not once they are saved', async () => {
@@ -192,7 +188,7 @@ describe('the overview', () => {
 
 describe('every manager page', () => {
   it('renders without a hydration warning in a browser in another zone, and the revisions list writes the venue\'s time', async () => {
-    const products = (await manager.get<{ id: number }[]>('/api/products')).body
+    const products = (await allProducts(manager))
     const productId = products[0]!.id
     expect((await manager.request('PUT', `/api/content/product_note/${productId}`, { body: 'A note to keep a revision of.' })).status).toBe(200)
     const revisions = (await manager.get<{ createdAt: string }[]>(`/api/content/product_note/${productId}/revisions`)).body

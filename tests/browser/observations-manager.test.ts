@@ -76,6 +76,17 @@ describe('the hand-off', () => {
     expect(await outlier.first().innerText()).toMatch(/Marsh Samphire Gin · Nosing glass/)
     expect(await page.locator('[data-demo-note]').count()).toBe(0)
     await shot(page, 'observations-manager-handoff')
+
+    // The product filter searches the catalogue on the server; the chosen product survives a reload by name.
+    const product = page.getByLabel('Product', { exact: true })
+    await product.fill('samphire')
+    await page.getByRole('option', { name: /^Marsh Samphire Gin/ }).click()
+    await page.getByRole('button', { name: 'Show' }).click()
+    await page.waitForURL(/productId=\d+/)
+    const byProduct = page.locator('table', { has: page.getByRole('columnheader', { name: 'Tears as expected' }) }).first()
+    await expect.poll(() => byProduct.locator('tbody tr').allInnerTexts()).toEqual([expect.stringMatching(/^Marsh Samphire Gin/)])
+    await page.reload()
+    expect(await page.getByLabel('Product', { exact: true }).inputValue()).toBe('Marsh Samphire Gin')
     await withDb(c => c.query('DELETE FROM observations WHERE id = ?', [id]))
   })
 })

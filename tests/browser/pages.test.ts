@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { ConsoleMessage, Locator, Page } from 'playwright-core'
 import { DateTime } from 'luxon'
 import { openBrowser, shot, showCurveChart, signInThroughForm } from '../support/browser'
-import { Client } from '../support/http'
+import { allProducts, Client } from '../support/http'
 import { inviteStaff, requestPasswordReset, signedIn } from '../support/people'
 import { bookAndPay, demoFlightId, newGuest, newSession } from '../support/booking'
 import { DEMO_PASSWORD, DEMO_USERS, DEMO_VENUE } from '../../server/demo/data'
@@ -190,7 +190,7 @@ describe('every page file', () => {
     const booking = await bookAndPay({ client: guest, email: GUEST.email, name: GUEST.name, dateOfBirth: GUEST.dateOfBirth! }, fx.session, PARTY)
     fx.booking = booking.id
     fx.bookingReference = booking.reference
-    fx.product = ((await manager.get('/api/products')).body as { id: number, code: string }[]).find(p => p.code === PRODUCT_CODE)!.id
+    fx.product = ((await allProducts(manager)) as { id: number, code: string }[]).find(p => p.code === PRODUCT_CODE)!.id
     // A saved draft, so the editor shows its revisions list too.
     expect((await marketing.request('PUT', `/api/content/product_note/${fx.product}`, { body: 'Dried plum, cocoa and **sea salt**.' })).status).toBe(200)
     fx.welcomeToken = (await inviteStaff(manager, 'host', 'Ines Carrow')).token

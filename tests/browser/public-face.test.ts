@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext, Locator, Page } from 'playwright-core'
 import { openBrowser, shot, signInThroughForm } from '../support/browser'
-import { Client } from '../support/http'
+import { allProducts, Client } from '../support/http'
 import { signedIn } from '../support/people'
 import { demoFlightId } from '../support/booking'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
@@ -136,7 +136,7 @@ describe('on a phone', () => {
     expect((await marketing.request('PUT', `/api/content/product_note/${product.body.id}`, { body: note })).status).toBe(200)
     expect((await marketing.post(`/api/content/product_note/${product.body.id}/publish`)).status).toBe(200)
     const glass = ((await manager.get('/api/glasses')).body as { id: number }[])[0]!.id
-    const red = ((await manager.get('/api/products')).body as { id: number, code: string }[]).find(p => p.code === 'SV-CF-23')!.id
+    const red = ((await allProducts(manager)) as { id: number, code: string }[]).find(p => p.code === 'SV-CF-23')!.id
     const pours = [product.body.id, red].map(productId => ({ productId, volumeMl: 60, glassId: glass, servingTempC: 12 }))
     const flight = await manager.post('/api/flights', { name: `Long words ${Date.now()}`, summary: 'Two pours', pours })
     expect(flight.status, JSON.stringify(flight.body)).toBe(201)

@@ -4,7 +4,7 @@ import { readdirSync, readFileSync } from 'node:fs'
 import { describe, expect, inject, it } from 'vitest'
 import sharp from 'sharp'
 import Stripe from 'stripe'
-import { Client, uniqueEmail } from '../support/http'
+import { allProducts, Client, uniqueEmail } from '../support/http'
 import { signedIn } from '../support/people'
 import { withDb } from '../support/db'
 import { bookAndPay, bookingBody, bookingRow, checkoutIdOf, fakeStripe, newGuest, newSession, payCheckout, seatsLeft, waitFor } from '../support/booking'
@@ -20,7 +20,7 @@ const cacheDir = resolve(import.meta.dirname, '../../.data/uploads/cache')
 const variantsOf = (src: string) => readdirSync(cacheDir).filter(f => f.startsWith(`${src.replace(/\.\w+$/, '')}-`)).sort()
 
 async function uploadPhoto(c: Client, image: Buffer): Promise<{ status: number, body: any }> {
-  const products = (await c.get('/api/products')).body as { id: number }[]
+  const products = (await allProducts(c)) as { id: number }[]
   const form = new FormData()
   form.append('file', new Blob([new Uint8Array(image)]), 'photo.png')
   form.append('productId', String(products[0]!.id))

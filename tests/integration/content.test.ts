@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import sharp from 'sharp'
-import { Client } from '../support/http'
+import { allProducts, Client } from '../support/http'
 import { countRows } from '../support/db'
 import { signedIn } from '../support/people'
 
@@ -12,7 +12,7 @@ let flightId: number
 beforeAll(async () => {
   manager = await signedIn('manager')
   marketing = await signedIn('marketing')
-  productId = ((await manager.get('/api/products')).body as { id: number, code: string }[]).find(p => p.code === 'SV-ALB-24')!.id
+  productId = ((await allProducts(manager)) as { id: number, code: string }[]).find(p => p.code === 'SV-ALB-24')!.id
   flightId = ((await manager.get('/api/flights')).body as { id: number, name: string }[]).find(f => f.name === 'Shoreline Flight')!.id
 })
 

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest'
-import { Client } from '../support/http'
+import { allProducts, Client } from '../support/http'
 import { countRows } from '../support/db'
 import { signedIn } from '../support/people'
 
@@ -13,7 +13,7 @@ const pour = (code: string, volumeMl: number, servingTempC = 12) => ({ productId
 
 beforeAll(async () => {
   manager = await signedIn('manager')
-  products = new Map(((await manager.get('/api/products')).body as Product[]).map(p => [p.code, p]))
+  products = new Map(((await allProducts(manager)) as Product[]).map(p => [p.code, p]))
   glasses = (await manager.get('/api/glasses')).body
 })
 

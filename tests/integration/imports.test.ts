@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { Client } from '../support/http'
+import { allProducts, Client } from '../support/http'
 import { countRows } from '../support/db'
 import {
   bigProductsSheet, lastMeasurementId, measurementsErrorSheet, ndjsonLines, PRODUCT_COLUMNS, productRow, productsErrorSheet,
@@ -53,7 +53,7 @@ describe('lab-sheet import', () => {
     expect(await countRows('products')).toBe(products + 20)
     expect(await countRows('product_measurements')).toBe(measurements + 20)
 
-    const list = (await manager.get('/api/products')).body as { code: string, costPerBottleMinor: number, allergens: string[], derived: { filmActivityIndex: number } }[]
+    const list = (await allProducts(manager)) as { code: string, costPerBottleMinor: number, allergens: string[], derived: { filmActivityIndex: number } }[]
     const stout = list.find(p => p.code === 'LB-STO-26')!
     expect(stout.costPerBottleMinor).toBe(500)
     expect(stout.allergens).toEqual(['gluten', 'molluscs'])
@@ -104,7 +104,7 @@ describe('lab-sheet import', () => {
     expect(rowAt(check, 4).errors).toEqual({})
     const res = await manager.post('/api/lab-sheets', { sheet: 'products', csv, lines: [2, 4] })
     expect(res.status).toBe(201)
-    const list = (await manager.get('/api/products')).body as { code: string, colour: string | null }[]
+    const list = (await allProducts(manager)) as { code: string, colour: string | null }[]
     expect(list.find(p => p.code === `${tag}-E20`)!.colour).toBe('pale_straw')
     expect(list.find(p => p.code === `${tag}-E22`)!.colour).toBeNull()
   })
@@ -168,7 +168,7 @@ describe('lab-sheet import', () => {
     expect(rowAt(check, 2).summary).toMatchObject({ name: DEMO_PRODUCTS[0]!.name, kind: DEMO_PRODUCTS[0]!.kind, abvPctVol: 6.3 })
     const products = await countRows('products')
     const measurements = await countRows('product_measurements')
-    const list = (await manager.get('/api/products')).body as { id: number, code: string }[]
+    const list = (await allProducts(manager)) as { id: number, code: string }[]
     const cider = list.find(p => p.code === 'SV-CID-21')!
     const before = (await manager.get(`/api/products/${cider.id}`)).body
 

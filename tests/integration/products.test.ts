@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { Client } from '../support/http'
+import { allProducts, Client } from '../support/http'
 import { countRows } from '../support/db'
 import { removeProducts, runTag } from '../support/labSheets'
 import { DEMO_PASSWORD, DEMO_PRODUCTS } from '../../server/demo/data'
@@ -161,17 +161,20 @@ describe('products', () => {
   })
 
   it('staff read the list; only the manager sees costs; the list carries the derived figures', async () => {
-    const list = await manager.get('/api/products')
-    expect(list.status).toBe(200)
-    const demo = list.body.find((p: { code: string }) => p.code === DEMO_PRODUCTS[5]!.code)
+    const list = await allProducts(manager)
+    const demo = list.find((p: { code: string }) => p.code === DEMO_PRODUCTS[5]!.code)
     expect(demo.costPerBottleMinor).toBe(DEMO_PRODUCTS[5]!.costPerBottleMinor)
     expect(demo.derived.standardDrinksPerPour).toBeCloseTo(22 * 0.43 * 0.78924 / 14, 6) // 22 mL of 43 % spirit, 0.78924 g/mL (OIML R 22), 14 g per US drink (NIAAA)
+    // A list row carries the figures the table shows, not the model's whole prediction (its curves are the product page's).
     expect(demo.history).toBeUndefined()
+    expect(demo.derived.predictions).toBeUndefined()
+    const one = (await manager.get(`/api/products/${demo.id}`)).body
+    expect(demo.derived.filmActivityIndex).toBe(one.derived.filmActivityIndex)
+    expect(demo.derived.tearsExpected).toBe(one.derived.predictions.tearsExpected)
     for (const reader of [host, marketing]) {
-      const res = await reader.get('/api/products')
-      expect(res.status).toBe(200)
-      expect(res.body.length).toBe(list.body.length)
-      expect(res.body.every((p: { costPerBottleMinor: number | null }) => p.costPerBottleMinor === null)).toBe(true)
+      const all = await allProducts(reader)
+      expect(all.length).toBe(list.length)
+      expect(all.every((p: { costPerBottleMinor: number | null }) => p.costPerBottleMinor === null)).toBe(true)
       const one = await reader.get(`/api/products/${demo.id}`)
       expect(one.status).toBe(200)
       expect(one.body.costPerBottleMinor).toBeNull()
@@ -179,8 +182,56 @@ describe('products', () => {
     }
   })
 
+  it('the list is a page the server searches, filters and sorts: a catalogue of thousands costs what a page costs', async () => {
+    const made: Record<string, number> = {}
+    for (const [suffix, abvPctVol, status] of [['PA', 11.0, 'active'], ['PB', 13.5, 'active'], ['PC', 12.2, 'retired']] as const) {
+      const res = await manager.post('/api/products', newProduct(`${tag}-PG${suffix}`, { status, measurement: { abvPctVol, residualSugarGL: 2, lab: 'Test Lab', method: 'Ebulliometry', measuredOn: '2026-10-01' } }))
+      expect(res.status).toBe(201)
+      made[suffix] = res.body.id
+    }
+    const page = async (query: string) => {
+      const res = await manager.get(`/api/products?q=${encodeURIComponent(`${tag}-PG`)}&${query}`)
+      expect(res.status).toBe(200)
+      return res.body as { items: { id: number, code: string }[], total: number, page: number, pageSize: number, counts: { active: number, retired: number } }
+    }
+    const codes = (p: { items: { code: string }[] }) => p.items.map(i => i.code.slice(`${tag}-PG`.length))
+
+    const byAbv = await page('sort=abv&dir=desc')
+    expect(codes(byAbv)).toEqual(['PB', 'PC', 'PA'])
+    expect(byAbv.total).toBe(3)
+    const active = await page('status=active&sort=abv')
+    expect(codes(active)).toEqual(['PA', 'PB'])
+    expect(active.counts.retired).toBeGreaterThanOrEqual(1)
+    expect(active.counts.active + active.counts.retired).toBe((await allProducts(manager)).length)
+
+    const second = await page('sort=code&pageSize=2&page=2')
+    expect(second).toMatchObject({ page: 2, pageSize: 2, total: 3 })
+    expect(codes(second)).toEqual(['PC'])
+
+    // Every word must match, in any field; LIKE's own wildcards are taken literally.
+    expect((await page('status=all')).total).toBe(3)
+    expect((await manager.get(`/api/products?q=${encodeURIComponent(`Brinefield ${tag}-PGPB`)}`)).body.items.map((i: { id: number }) => i.id)).toEqual([made.PB])
+    expect((await manager.get('/api/products?q=%25')).body.total).toBe(0)
+    expect((await manager.get('/api/products?q=_')).body.total).toBe(0)
+
+    const named = (await manager.get(`/api/products?ids=${made.PA},${made.PC}`)).body
+    expect(named.items.map((i: { id: number }) => i.id).sort()).toEqual([made.PA, made.PC].sort())
+
+    // The ABV sort reads the current measurement: a newer one moves the product.
+    expect((await manager.post(`/api/products/${made.PA}/measurements`, { abvPctVol: 14.2, residualSugarGL: 2, lab: 'Test Lab', method: 'Ebulliometry', measuredOn: '2026-11-02' })).status).toBe(201)
+    expect(codes(await page('sort=abv&dir=desc'))).toEqual(['PA', 'PB', 'PC'])
+  })
+
+  it('a bad list query is a 400 naming each field', async () => {
+    const res = await manager.get('/api/products?pageSize=0&sort=colour&ids=1,x&page=0&status=gone&dir=up&kind=mead')
+    expect(res.status).toBe(400)
+    for (const field of ['pageSize', 'sort', 'ids', 'page', 'status', 'dir', 'kind']) expect(res.body.data.fields[field], field).toBeTruthy()
+    expect((await manager.get('/api/products?pageSize=101')).body.data.fields.pageSize).toMatch(/at most 100/)
+    expect((await manager.get(`/api/products?q=${'w'.repeat(81)}`)).body.data.fields.q).toMatch(/80/)
+  })
+
   it('anonymous visitors get 401, guests 403, host and marketing 403 on every write', async () => {
-    const id = (await manager.get('/api/products')).body[0].id
+    const id = (await allProducts(manager))[0].id
     const reads: [string, string][] = [['GET', '/api/products'], ['GET', `/api/products/${id}`]]
     const writes: [string, string, unknown][] = [
       ['POST', '/api/products', newProduct(`${tag}-X`)],

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { DateTime } from 'luxon'
 import sharp from 'sharp'
 import type { BrowserContext } from 'playwright-core'
-import { Client } from '../support/http'
+import { allProducts, Client } from '../support/http'
 import { signedIn } from '../support/people'
 import { withDb } from '../support/db'
 import { openBrowser } from '../support/browser'
@@ -55,7 +55,7 @@ function meta(page: string, key: string): string | undefined {
 
 /** A published flight of two demo pours, of its own, so its page lists only the sessions made here. */
 async function ownFlight(manager: Client, name: string, publish = true): Promise<number> {
-  const products = (await manager.get('/api/products')).body as { id: number, code: string }[]
+  const products = (await allProducts(manager)) as { id: number, code: string }[]
   const glass = ((await manager.get('/api/glasses')).body as { id: number }[])[0]!.id
   const pour = (code: string) => ({ productId: products.find(p => p.code === code)!.id, volumeMl: 60, glassId: glass, servingTempC: 12 })
   const res = await manager.post('/api/flights', { name, summary: `${name}: two pours`, pours: [pour('SV-ALB-24'), pour('SV-CF-23')] })
@@ -187,7 +187,7 @@ describe('link previews', () => {
 describe('the demo tells the story', () => {
   it('every demo product has a published tasting note and a photo that loads; the room has its own photo', async () => {
     const marketing = await signedIn('marketing')
-    const products = (await marketing.get('/api/products')).body as { id: number, code: string }[]
+    const products = (await allProducts(marketing)) as { id: number, code: string }[]
     for (const d of DEMO_PRODUCTS) {
       const id = products.find(p => p.code === d.code)!.id
       const note = (await marketing.get(`/api/content/product_note/${id}`)).body

@@ -70,3 +70,11 @@ export async function showCurveChart(page: Page, nth = 0) {
   await page.waitForTimeout(300) // the chart draws on the next frame
   return canvas
 }
+
+/** Adds a pour to the flight builder the way a manager does: search the catalogue by name, choose, Add. */
+export async function addPourByName(page: Page, name: string) {
+  const field = page.getByLabel('Add a pour')
+  await field.fill(name)
+  await page.getByRole('option', { name: new RegExp(`^${name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}`) }).first().click()
+  await page.getByRole('button', { name: 'Add', exact: true }).click()
+}

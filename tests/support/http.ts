@@ -64,3 +64,25 @@ export class Client {
 function rnd() { return Math.floor(Math.random() * 250) + 1 }
 
 export const uniqueEmail = (tag: string) => `${tag}-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 7)}@example.test`
+
+/**
+ * Every product of the venue as GET /api/products lists them, page by page (a test that needs one by
+ * its code or name reads the whole catalogue this way, not by assuming it fits one page).
+ */
+export async function allProducts<T = any>(c: Client): Promise<T[]> {
+  const out: T[] = []
+  for (let page = 1; ; page++) {
+    const res = await c.get<{ items: T[], total: number }>(`/api/products?pageSize=100&page=${page}`)
+    if (res.status !== 200) throw new Error(`GET /api/products answered ${res.status}`)
+    out.push(...res.body.items)
+    if (out.length >= res.body.total || !res.body.items.length) return out
+  }
+}
+
+/** The id of the product with this code (found by the list's own search). */
+export async function productIdByCode(c: Client, code: string): Promise<number> {
+  const res = await c.get<{ items: { id: number, code: string }[] }>(`/api/products?q=${encodeURIComponent(code)}`)
+  const found = res.body.items?.find(p => p.code === code)
+  if (!found) throw new Error(`no product with the code ${code}`)
+  return found.id
+}

@@ -1,7 +1,11 @@
-/** Every product of the venue with its current measurement and derived figures (staff only). */
+import { productListQuerySchema } from '../../../shared/schemas/products'
+
+/**
+ * A page of the venue's products with their current measurement and derived figures (staff only),
+ * filtered, searched and sorted by the query; the cost is shown to managers only.
+ */
 export default defineEventHandler(async (event) => {
   const user = await requireRole(event, 'manager', 'host', 'marketing')
-  const venue = await getVenue()
-  const rows = await loadProducts(venue.id)
-  return rows.map(p => productView(p, venue, user.role)).sort((a, b) => a.name.localeCompare(b.name))
+  const query = await readQueryAs(event, productListQuerySchema)
+  return listProducts(await getVenue(), query, user.role)
 })
