@@ -49,7 +49,24 @@ export interface GrowthRow { route: string, p50: number, p99: number, rps: numbe
 /** One route to measure: its name, its request, and (for EXPLAIN) one plain GET of it. */
 export interface GrowthTarget { route: string, opts: autocannon.Options, probe?: { path: string, cookie?: string } }
 
+/**
+ * Waits until the server answers /api/ping within 20 ms three times running (at most 30 s):
+ * autocannon stops at the end of its run with requests still in flight, and a slow route's last
+ * answers would otherwise be timed as the next route's tail.
+ */
+async function settle(): Promise<void> {
+  const until = Date.now() + 30_000
+  let quick = 0
+  while (quick < 3 && Date.now() < until) {
+    const t0 = performance.now()
+    await call('/api/ping')
+    quick = performance.now() - t0 < 20 ? quick + 1 : 0
+    await new Promise(r => setTimeout(r, 50))
+  }
+}
+
 async function measure(t: GrowthTarget): Promise<GrowthRow> {
+  await settle()
   const result = await autocannon({ duration: SECONDS, connections: 10, ...t.opts })
   const codes = answerCounts(result)
   const row = { route: t.route, p50: result.latency.p50, p99: result.latency.p99, rps: result.requests.average, codes, bytes: Math.round(result.throughput.total / Math.max(1, result.requests.total)) }

@@ -6,8 +6,15 @@
 
 /** Minor-unit digits of a currency: 2 for USD and EUR, 0 for JPY, 3 for BHD (ISO 4217, through Intl). */
 export function currencyDigits(currency: string): number {
-  return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2
+  let digits = DIGITS.get(currency)
+  if (digits === undefined) {
+    digits = new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2
+    if (DIGITS.size < 400) DIGITS.set(currency, digits)
+  }
+  return digits
 }
+/** Digits by currency, learnt once each (making an Intl.NumberFormat costs ~15 µs; a CSV asks thousands of times). */
+const DIGITS = new Map<string, number>()
 
 /** Whole minor units → the major units as a plain decimal string: "35.00", "3500" for JPY. */
 export function minorToDecimal(minor: number, currency: string): string {
@@ -17,8 +24,15 @@ export function minorToDecimal(minor: number, currency: string): string {
 
 /** Whole minor units → an amount with its currency sign, in a locale: "$35.00", "€12.50". */
 export function formatMoney(minor: number, currency: string, locale = 'en-US'): string {
-  return new Intl.NumberFormat(locale, { style: 'currency', currency }).format(Number(minorToDecimal(minor, currency)))
+  const key = `${locale}|${currency}`
+  let f = MONEY_FORMATS.get(key)
+  if (!f) {
+    f = new Intl.NumberFormat(locale, { style: 'currency', currency })
+    if (MONEY_FORMATS.size < 1000) MONEY_FORMATS.set(key, f)
+  }
+  return f.format(Number(minorToDecimal(minor, currency)))
 }
+const MONEY_FORMATS = new Map<string, Intl.NumberFormat>()
 
 /**
  * "14.50" (a leading currency sign is allowed) → 1450 minor units of USD. Blank → undefined; text

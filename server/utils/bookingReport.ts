@@ -1,9 +1,9 @@
-import { and, asc, eq, gte, inArray, lt, type SQL } from 'drizzle-orm'
+import { and, asc, count, eq, gte, inArray, lt, sql, type SQL } from 'drizzle-orm'
 import { DateTime } from 'luxon'
 import type { Venue } from '../db/schema/venues'
 import type { z } from 'zod'
 import type { bookingReportQuerySchema } from '../../shared/schemas/bookings'
-import { addSeatCounts, countSeats, seatFactOf, type SeatCount } from '../../shared/seats'
+import { addSeatCounts, countSeats, seatFactOf } from '../../shared/seats'
 import type { BookingReport } from '../../shared/types/reports'
 import { groupedBy } from '../../shared/utils/grouped'
 
@@ -18,34 +18,49 @@ function reportRange(venue: Venue, q: Pick<ReportQuery, 'from' | 'to'>) {
 }
 
 /**
- * Sessions in the range with their bookings (two queries), each session's seats, fill rate and
- * takings, and the totals. Seats taken and left are the shared rule (shared/seats.ts), as every
+ * Sessions in the range with their bookings, each session's seats, fill rate and takings, and the
+ * totals of the whole range. Seats taken and left are the shared rule (shared/seats.ts), as every
  * other screen shows them; the fill rate is of seats sold, which also counts the parties that did
  * not come or were turned away (they paid for their seats). Takings are what was paid less what
  * was refunded, in minor units.
+ *
+ * `page` (from 1, `pageSize` sessions each, in start order) bounds what is read and sent in full: the
+ * totals come from grouped queries over the whole range, the parties and their details only for the
+ * page's sessions, so a busy month costs a page's worth of rows. Without `page`, every session (the
+ * CSV export).
  */
-export async function loadBookingReport(venue: Venue, q: ReportQuery): Promise<BookingReport> {
+export async function loadBookingReport(venue: Venue, q: ReportQuery, paging?: { page: number, pageSize: number }): Promise<BookingReport> {
   const range = reportRange(venue, q)
   const s = tables.tastingSessions
+  const b = tables.bookings
+  const db = useDb()
   const where: SQL[] = [eq(s.venueId, venue.id), gte(s.startsAt, range.fromUtc), lt(s.startsAt, range.toUtc)]
   if (q.flightId) where.push(eq(s.flightId, q.flightId))
-  const sessions = await loadSessionViews(and(...where), venue.timeZone)
-  const b = tables.bookings
-  const rows = sessions.length
-    ? await useDb().select({ b, guestName: tables.users.name, guestEmail: tables.users.email, checkIn: { outcome: tables.checkIns.outcome, seated: tables.checkIns.seated } }).from(b)
-        .innerJoin(tables.users, eq(tables.users.id, b.userId))
-        .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, b.id))
-        .where(inArray(b.sessionId, sessions.map(x => x.id)))
-        .orderBy(asc(b.sessionId), asc(b.createdAt))
-    : []
+  const inRange = await db.select({ id: s.id, seats: s.seats, status: s.status }).from(s).where(and(...where)).orderBy(asc(s.startsAt), asc(s.id))
+  const ids = inRange.map(x => x.id)
   const now = new Date()
-  const counts = new Map<number, SeatCount>()
-  // Grouped once, so a month of a busy venue costs one pass over its bookings, not one per session.
+  const [seatCounts, [money]] = await Promise.all([
+    loadSeatCounts(db, inRange, now),
+    ids.length
+      ? db.select({ n: count(), paid: sql<number>`coalesce(sum(${b.amountPaidMinor}), 0)`.mapWith(Number), refunded: sql<number>`coalesce(sum(${b.amountRefundedMinor}), 0)`.mapWith(Number) }).from(b).where(inArray(b.sessionId, ids))
+      : [{ n: 0, paid: 0, refunded: 0 }],
+  ])
+  const shownIds = paging ? ids.slice((paging.page - 1) * paging.pageSize, paging.page * paging.pageSize) : ids
+  const [sessions, rows] = shownIds.length
+    ? await Promise.all([
+        loadSessionViews(inArray(s.id, shownIds), venue.timeZone),
+        db.select({ b, guestName: tables.users.name, guestEmail: tables.users.email, checkIn: { outcome: tables.checkIns.outcome, seated: tables.checkIns.seated } }).from(b)
+          .innerJoin(tables.users, eq(tables.users.id, b.userId))
+          .leftJoin(tables.checkIns, eq(tables.checkIns.bookingId, b.id))
+          .where(inArray(b.sessionId, shownIds))
+          .orderBy(asc(b.sessionId), asc(b.createdAt)),
+      ])
+    : [[], []]
+  // Grouped once, so the page's sessions cost one pass over their bookings, not one per session.
   const bySession = groupedBy(rows, r => r.b.sessionId)
   const out = sessions.map((session) => {
     const mine = bySession.get(session.id) ?? []
     const seats = countSeats(session.seats, mine.map(r => seatFactOf(r.b, r.checkIn, now)))
-    counts.set(session.id, seats)
     const list = mine.map(({ b: row, guestName, guestEmail }) => ({
       id: row.id,
       reference: row.reference,
@@ -81,23 +96,25 @@ export async function loadBookingReport(venue: Venue, q: ReportQuery): Promise<B
       revenueMinor: paidMinor - refundedMinor,
     }
   })
-  const live = addSeatCounts(out.filter(x => x.session.status !== 'cancelled').map(x => counts.get(x.session.id)!))
+  const live = addSeatCounts(inRange.filter(x => x.status !== 'cancelled').map(x => seatCounts.get(x.id)!))
   return {
     from: range.from,
     to: range.to,
     currency: venue.currency,
     sessions: out,
+    page: paging?.page ?? 1,
+    pageSize: paging?.pageSize ?? Math.max(1, ids.length),
     totals: {
-      sessions: out.length,
+      sessions: ids.length,
       seats: live.seats,
       seatsTaken: live.seatsTaken,
       seatsLeft: live.seatsLeft,
       seatsSold: live.seatsSold,
       fillRate: live.seats ? live.seatsSold / live.seats : 0,
-      bookings: out.reduce((n, x) => n + x.bookings.length, 0),
-      paidMinor: out.reduce((n, x) => n + x.paidMinor, 0),
-      refundedMinor: out.reduce((n, x) => n + x.refundedMinor, 0),
-      revenueMinor: out.reduce((n, x) => n + x.revenueMinor, 0),
+      bookings: money?.n ?? 0,
+      paidMinor: money?.paid ?? 0,
+      refundedMinor: money?.refunded ?? 0,
+      revenueMinor: (money?.paid ?? 0) - (money?.refunded ?? 0),
     },
   }
 }

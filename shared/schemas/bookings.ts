@@ -29,8 +29,19 @@ export const bookingListQuerySchema = z.object({
 })
 
 /** The manager's bookings view and the CSV export: dates are the venue's calendar days. */
-export const bookingReportQuerySchema = z.object({
+const reportFields = {
   from: isoDateField.optional(),
   to: isoDateField.optional(),
   flightId: z.coerce.number({ error: 'flightId must be a number.' }).int({ error: 'flightId must be a whole number.' }).positive({ error: 'flightId must be positive.' }).optional(),
-}).refine(q => !q.from || !q.to || q.from <= q.to, { error: 'The end date must not be before the start date.', path: ['to'] })
+}
+const reportDatesInOrder = { error: 'The end date must not be before the start date.', path: ['to'] }
+export const bookingReportQuerySchema = z.object(reportFields).refine(q => !q.from || !q.to || q.from <= q.to, reportDatesInOrder)
+
+/** Sessions per page of the manager's bookings view (the CSV has them all). */
+export const REPORT_SESSIONS_PER_PAGE = 20
+
+/** The bookings view: the report's range and a page of its sessions (from 1). */
+export const bookingReportPageQuerySchema = z.object({
+  ...reportFields,
+  page: z.coerce.number({ error: 'page must be a number.' }).int({ error: 'page must be a whole number.' }).min(1, { error: 'Pages are numbered from 1.' }).max(10_000, { error: 'page is at most 10000.' }).default(1),
+}).refine(q => !q.from || !q.to || q.from <= q.to, reportDatesInOrder)

@@ -47,7 +47,11 @@ export interface BookingReport {
   from: string
   to: string
   currency: string
+  /** The page's sessions (all of them in the CSV), in start order; `totals` cover the whole range. */
   sessions: ReportSession[]
+  /** From 1; `totals.sessions` over `pageSize` is the number of pages. */
+  page: number
+  pageSize: number
   totals: { sessions: number, seats: number, seatsTaken: number, seatsLeft: number, seatsSold: number, fillRate: number, bookings: number, paidMinor: number, refundedMinor: number, revenueMinor: number }
 }
 

@@ -186,6 +186,36 @@ describe('the overview', () => {
   }, 90_000)
 })
 
+describe('the bookings view of a long range', () => {
+  it('pages its sessions by address: the totals cover the range, and a guest\'s booking on page 2 is there for the manager', async () => {
+    // 22 weekly sessions four years ahead (no other test schedules there): two pages of 20.
+    const first = DateTime.now().setZone(DEMO_VENUE.timeZone).plus({ years: 4 }).startOf('week').plus({ days: 3 })
+    const made = await manager.post('/api/sessions', { flightId: await demoFlightId(), startDate: first.toISODate(), startTime: '11:40', durationMinutes: 60, seats: 5, priceMinor: 3100, bookingCutoffMinutes: 60, repeatWeeks: 22 })
+    expect(made.status, JSON.stringify(made.body)).toBe(201)
+    const ids = (made.body as { id: number }[]).map(x => x.id)
+    const guest = await newGuest('pager')
+    const booked = await bookAndPay(guest, ids[20]!, 2)
+    const page = await context.newPage()
+    const warnings = hydrationWarnings(page)
+    await page.goto(`/manage/bookings?from=${first.toISODate()}&to=${first.plus({ weeks: 21 }).toISODate()}`)
+    const pager = page.getByRole('navigation', { name: 'Sessions: pages, below the list' })
+    expect(await pager.innerText()).toContain('Sessions 1–20 of 22 · page 1 of 2')
+    expect(await page.getByText('2 of 110 seats').count()).toBe(1) // the whole range's seats sold, though the party is on page 2
+    expect(await page.getByText(booked.reference).count()).toBe(0)
+    await pager.getByRole('link', { name: 'Next' }).click()
+    await page.waitForURL(/[?&]page=2/)
+    await page.getByText(booked.reference).first().waitFor()
+    expect(await pager.innerText()).toContain('Sessions 21–22 of 22 · page 2 of 2')
+    await shot(page, 'manager-bookings-page-2')
+    await page.reload()
+    await page.getByText(booked.reference).first().waitFor()
+    await pager.getByRole('link', { name: 'Previous' }).click()
+    await expect.poll(() => pager.innerText()).toContain('page 1 of 2')
+    expect(warnings).toEqual([])
+    await page.close()
+  }, 90_000)
+})
+
 describe('every manager page', () => {
   it('renders without a hydration warning in a browser in another zone, and the revisions list writes the venue\'s time', async () => {
     const products = (await allProducts(manager))

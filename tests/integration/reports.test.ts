@@ -3,7 +3,7 @@ import Papa from 'papaparse'
 import { DateTime } from 'luxon'
 import type { Client } from '../support/http'
 import { withDb } from '../support/db'
-import { bookAndPay, bookingBody, checkoutIdOf, newGuest, newSession, payCheckout, signedIn, waitForState } from '../support/booking'
+import { bookAndPay, bookingBody, checkoutIdOf, demoFlightId, newGuest, newSession, payCheckout, signedIn, waitForState } from '../support/booking'
 import { DEMO_VENUE } from '../../server/demo/data'
 import type { ManagerOverview } from '../../shared/types/reports'
 
@@ -148,5 +148,46 @@ describe('the bookings report', () => {
     const plainDay = DateTime.fromISO(plain.startsAt, { zone }).toISODate()
     const csv2 = Papa.parse<Record<string, string>>((await manager.get<string>(`/reports/bookings.csv?from=${plainDay}&to=${plainDay}`)).body, { header: true, skipEmptyLines: true })
     expect(csv2.data.find(r => r['Session id'] === String(plain.id))).toMatchObject({ 'Guest notes': '', 'Session status': 'Open' })
+  })
+})
+
+describe('the bookings view of a long range', () => {
+  it('sends a page of sessions at a time; the totals cover the whole range, the pages together are the range, the CSV has every row', async () => {
+    // 23 weekly sessions three years ahead, where no other test schedules: more than one page of 20.
+    const first = DateTime.now().setZone(zone).plus({ years: 3 }).startOf('week').plus({ days: 2 })
+    const made = await manager.post('/api/sessions', { flightId: await demoFlightId(), startDate: first.toISODate(), startTime: '10:15', durationMinutes: 60, seats: 6, priceMinor: 2750, bookingCutoffMinutes: 60, repeatWeeks: 23 })
+    expect(made.status, JSON.stringify(made.body)).toBe(201)
+    const ids = (made.body as { id: number }[]).map(x => x.id)
+    const from = first.toISODate()
+    const to = first.plus({ weeks: 22 }).toISODate()
+    // A paid party of 3 in the 22nd session, on the second page.
+    const party = await bookAndPay(await newGuest('report-pages'), ids[21]!, 3)
+
+    const page = async (n?: number) => {
+      const res = await manager.get(`/api/reports/bookings?from=${from}&to=${to}${n ? `&page=${n}` : ''}`)
+      expect(res.status, JSON.stringify(res.body)).toBe(200)
+      return res.body as { page: number, pageSize: number, sessions: { session: { id: number }, bookings: { id: number }[], seatsTaken: number, revenueMinor: number }[], totals: { sessions: number, seats: number, seatsTaken: number, bookings: number, paidMinor: number, revenueMinor: number } }
+    }
+    const one = await page()
+    const two = await page(2)
+    expect(one).toMatchObject({ page: 1, pageSize: 20 })
+    expect(one.sessions.map(x => x.session.id)).toEqual(ids.slice(0, 20))
+    expect(two.sessions.map(x => x.session.id)).toEqual(ids.slice(20))
+    expect((await page(3)).sessions).toEqual([])
+    // Each page carries the whole range's totals, the seats and money of sessions it does not list included.
+    for (const p of [one, two]) {
+      expect(p.totals).toMatchObject({ sessions: 23, seats: 23 * 6, seatsTaken: 3, bookings: 1, paidMinor: 3 * 2750, revenueMinor: 3 * 2750 })
+    }
+    expect(two.sessions[1]).toMatchObject({ seatsTaken: 3, revenueMinor: 3 * 2750 })
+    expect(two.sessions[1]!.bookings.map(b => b.id)).toEqual([party.id])
+    expect(one.sessions.every(x => x.bookings.length === 0)).toBe(true)
+
+    const csv = Papa.parse<Record<string, string>>((await manager.get<string>(`/reports/bookings.csv?from=${from}&to=${to}`)).body, { header: true, skipEmptyLines: true })
+    expect(csv.data.map(r => r.Reference)).toEqual([party.reference])
+    expect(csv.data[0]!['Session start']).toBe(DateTime.fromISO(first.plus({ weeks: 21 }).toISODate()!, { zone }).set({ hour: 10, minute: 15 }).toFormat('yyyy-MM-dd HH:mm'))
+
+    const bad = await manager.get(`/api/reports/bookings?from=${from}&to=${to}&page=0`)
+    expect(bad.status).toBe(400)
+    expect(bad.body.data.fields.page).toMatch(/from 1/)
   })
 })

@@ -1,9 +1,9 @@
 import Papa from 'papaparse'
-import { DateTime } from 'luxon'
 import { bookingReportQuerySchema } from '../../../shared/schemas/bookings'
 import { BOOKING_STATE_LABELS } from '../../../shared/bookings'
 import { minorToDecimal } from '../../../shared/money'
 import { SESSION_STATUS_LABELS } from '../../../shared/sessions'
+import { formatStampInZone } from '../../../shared/dates'
 
 /** A cell a spreadsheet would run as a formula gets a leading apostrophe (OWASP, CSV injection). */
 const safeText = (v: string) => (/^[=+\-@\t\r]/.test(v) ? `'${v}` : v)
@@ -14,7 +14,7 @@ export default defineEventHandler(async (event) => {
   const q = await readQueryAs(event, bookingReportQuerySchema)
   const venue = await getVenue()
   const report = await loadBookingReport(venue, q)
-  const local = (iso: string) => DateTime.fromISO(iso, { zone: venue.timeZone }).toFormat('yyyy-MM-dd HH:mm')
+  const local = (iso: string) => formatStampInZone(iso, venue.timeZone)
   // Holds that ran out unpaid are left out: nothing happened and nothing was charged.
   const rows = report.sessions.flatMap(({ session, bookings }) => bookings.filter(b => b.state !== 'expired' || b.amountPaidMinor > 0).map(b => ({
     'Reference': b.reference,
