@@ -50,7 +50,9 @@ export const bookings = mysqlTable('bookings', {
 }, t => [
   uniqueIndex('bookings_reference_uq').on(t.reference),
   uniqueIndex('bookings_checkout_session_uq').on(t.checkoutSessionId),
-  index('bookings_session_state_idx').on(t.sessionId, t.state),
+  // A session's bookings by state, and everything the seat rule and a report's money totals read
+  // (source, hold end, party, paid, refunded): those grouped reads come from the index alone.
+  index('bookings_session_facts_idx').on(t.sessionId, t.state, t.source, t.holdExpiresAt, t.partySize, t.amountPaidMinor, t.amountRefundedMinor),
   index('bookings_user_idx').on(t.userId),
   index('bookings_state_hold_idx').on(t.state, t.holdExpiresAt),
   // Bookings by when they were made (takings and bookings over a range of days, the report's order).
