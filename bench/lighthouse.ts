@@ -8,6 +8,7 @@
  */
 import { resolve } from 'node:path'
 import { execSync } from 'node:child_process'
+import { mkdirSync, writeFileSync } from 'node:fs'
 import * as chromeLauncher from 'chrome-launcher'
 import lighthouse from 'lighthouse'
 import { databaseUrl, resetDatabase, startDb, stopDb, type DbInstance } from '../scripts/lib/mariadb'
@@ -19,6 +20,8 @@ const OFFSET = Number(process.env.LARMOIR_PORT_OFFSET ?? 0) || 0
 const BENCH_DB: DbInstance = { name: 'bench-db', port: 3419 + OFFSET, database: 'larmoir_bench', user: 'larmoir', password: 'larmoir' }
 const PORT = 3198 + OFFSET
 const root = resolve(import.meta.dirname, '..')
+/** Each page's last report, for reading the trace's details (`.data/lighthouse/*.json`). */
+const REPORTS = resolve(root, '.data/lighthouse')
 const FLAGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
   '--disable-background-networking', '--disable-component-update', '--disable-sync']
 const CATEGORIES = ['performance', 'accessibility', 'best-practices', 'seo'] as const
@@ -42,6 +45,14 @@ export async function runLighthouse(base: string, flightId: number, runs = 3): P
           port: chrome.port, output: 'json', logLevel: 'error', onlyCategories: [...CATEGORIES],
         }, { extends: 'lighthouse:default', settings: { formFactor: 'mobile', throttlingMethod: 'simulate' } })
         for (const c of CATEGORIES) allRuns[c].push(Math.round((result!.lhr.categories[c]?.score ?? 0) * 100))
+        // What the score is made of: each metric's simulated value and its own score (0–100).
+        const a = result!.lhr.audits
+        const metric = (id: string, unit = 'ms') => `${id.replace(/-/g, ' ')} ${Math.round(a[id]?.numericValue ?? 0)}${unit} (${Math.round((a[id]?.score ?? 0) * 100)})`
+        console.log(`[lighthouse] ${path} run ${i + 1}: ${[metric('first-contentful-paint'), metric('largest-contentful-paint'), metric('total-blocking-time'), metric('speed-index'), `cumulative layout shift ${(a['cumulative-layout-shift']?.numericValue ?? 0).toFixed(3)}`].join(', ')}`)
+        if (i === runs - 1) {
+          mkdirSync(REPORTS, { recursive: true })
+          writeFileSync(resolve(REPORTS, `${name.replace(/\W+/g, '-')}.json`), JSON.stringify(result!.lhr))
+        }
       }
       const scores = Object.fromEntries(CATEGORIES.map(c => [c, median(allRuns[c])])) as LighthouseRow['scores']
       console.log(`[lighthouse] ${path}: ${CATEGORIES.map(c => `${c} ${allRuns[c].join('/')}`).join(', ')}`)
@@ -73,7 +84,7 @@ async function main() {
   })
   try {
     const flights = await (await fetch(`${base}/api/flights/published`)).json() as { id: number }[]
-    const rows = await runLighthouse(base, flights[0]!.id)
+    const rows = await runLighthouse(base, flights[0]!.id, Number(process.env.LIGHTHOUSE_RUNS ?? 3) || 3)
     console.log(`\n${execSync('date -u').toString().trim()} · nproc ${execSync('nproc').toString().trim()} · Lighthouse 12.2.3, mobile, simulated throttling, median of 3\n`)
     console.log(lighthouseTable(rows))
   }

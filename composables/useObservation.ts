@@ -5,6 +5,34 @@ import type { ObservationSaved, PourObservations } from '#shared/types/observati
 interface Solved { token: string, counter: number, readyAt: number }
 
 /**
+ * The bot check solved in a worker, so the page stays responsive while it runs; on the page's own
+ * thread where a worker cannot start (an old browser, a blocked script), as before.
+ */
+function solveOffThread(token: string, bits: number): Promise<number> {
+  if (typeof Worker === 'undefined') return solveChallenge(token, bits)
+  return new Promise<number>((resolve, reject) => {
+    let worker: Worker
+    try {
+      worker = new Worker(new URL('../workers/observationChallenge.worker.ts', import.meta.url), { type: 'module' })
+    }
+    catch {
+      return resolve(solveChallenge(token, bits))
+    }
+    worker.onmessage = (e: MessageEvent<{ counter?: number, error?: string }>) => {
+      worker.terminate()
+      if (typeof e.data.counter === 'number') resolve(e.data.counter)
+      else reject(new Error(e.data.error ?? 'The bot check could not be solved.'))
+    }
+    worker.onerror = (e) => {
+      e.preventDefault()
+      worker.terminate()
+      resolve(solveChallenge(token, bits))
+    }
+    worker.postMessage({ token, bits })
+  })
+}
+
+/**
  * The guest's side of recording a glass on the pour page. Everything here runs in the browser after
  * hydration (the page's HTML is the same for every visitor and may be cached whole): the card's
  * session (`?s=`), the bot check (fetched and solved in the background as soon as the page opens),
@@ -23,7 +51,7 @@ export function useObservation(flightId: number, position: number) {
     const p = (async () => {
       const c = await $fetch<ObservationChallenge>('/api/observations/challenge')
       const fetchedAt = Date.now()
-      const counter = await solveChallenge(c.token, c.bits)
+      const counter = await solveOffThread(c.token, c.bits)
       solveMs.value = Math.round(performance.now() - started)
       return { token: c.token, counter, readyAt: fetchedAt + c.waitMs + 250 }
     })()

@@ -79,7 +79,10 @@ export default defineNitroPlugin((nitro) => {
     response.headers ??= {}
     response.headers.vary = VARY
     if (stored) {
-      Object.assign(response.headers, { 'cache-control': FROM_CACHE, 'etag': stored.etag, 'x-page-cache': 'miss' })
+      // The first visitor gets the page gzipped too, as every later one does from the cache.
+      const gzip = /\bgzip\b/.test(getRequestHeader(event, 'accept-encoding') ?? '')
+      if (gzip) response.body = stored.gzipped as unknown as string
+      Object.assign(response.headers, { 'cache-control': FROM_CACHE, 'etag': gzip ? stored.gzippedEtag : stored.etag, 'x-page-cache': 'miss', ...(gzip ? { 'content-encoding': 'gzip' } : {}) })
     }
     else if (!ownCacheControl) {
       response.headers['cache-control'] = NOT_FROM_CACHE

@@ -44,6 +44,9 @@ describe('recording a glass', () => {
       const page = await context.newPage()
       const errors: string[] = []
       page.on('console', (m) => { if (m.type() === 'error') errors.push(m.text()) })
+      // The bot check runs in a worker, off the page's main thread.
+      const workers: string[] = []
+      page.on('worker', w => workers.push(w.url()))
       await page.goto(new URL(pourUrl).pathname + new URL(pourUrl).search)
       const form = page.getByRole('form', { name: 'What did your glass show?' })
       await form.waitFor()
@@ -56,6 +59,7 @@ describe('recording a glass', () => {
       const solved = page.locator('form[data-solve-ms]')
       await solved.waitFor({ timeout: 30_000 })
       console.info(`[observe] bot check solved in Chromium in ${await solved.getAttribute('data-solve-ms')} ms`)
+      expect(workers).toEqual([expect.stringMatching(/\/_nuxt\/observationChallenge\.worker-[\w-]+\.js$/)])
       await shot(page, 'observe-phone-form')
       await form.getByRole('button', { name: 'Send what I saw' }).click()
 

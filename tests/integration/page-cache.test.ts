@@ -1,5 +1,7 @@
 import { createHash } from 'node:crypto'
-import { beforeAll, describe, expect, it } from 'vitest'
+import { request } from 'node:http'
+import { brotliDecompressSync, gunzipSync } from 'node:zlib'
+import { beforeAll, describe, expect, inject, it } from 'vitest'
 import { Client } from '../support/http'
 import { signedIn } from '../support/people'
 import { flightWithContent, type ContentFlight } from '../support/content'
@@ -174,5 +176,47 @@ describe('the content security policy on a page from the cache', () => {
       expect(page.body, path).not.toMatch(/\snonce="/)
       expect(page.body, path).not.toMatch(/\son[a-z]+="/) // no inline event handlers
     }
+  })
+
+  it('sends pages and the built files compressed to a browser that accepts it, the same bytes once decoded', async () => {
+    /** One GET on a bare socket: headers and bytes exactly as sent (fetch would decode them). */
+    const raw = (path: string, encoding?: string) => new Promise<{ status: number, headers: Record<string, string | string[] | undefined>, body: Buffer }>((done, fail) => {
+      const req = request(`${inject('appUrl')}${path}`, { headers: { 'x-forwarded-for': '10.9.8.7', ...(encoding ? { 'accept-encoding': encoding } : {}) } }, (res) => {
+        const chunks: Buffer[] = []
+        res.on('data', (c: Buffer) => chunks.push(c))
+        res.on('end', () => done({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }))
+      })
+      req.on('error', fail)
+      req.end()
+    })
+    const plain = await raw('/')
+    expect(plain.headers['content-encoding']).toBeUndefined()
+    const html = plain.body.toString('utf8')
+    const assets = [...html.matchAll(/(?:src|href)="(\/_nuxt\/[^"]+\.(?:js|css))"/g)].map(m => m[1]!)
+    expect(assets.some(a => a.endsWith('.js')) && assets.some(a => a.endsWith('.css'))).toBe(true)
+    for (const asset of new Set(assets)) {
+      const identity = await raw(asset)
+      expect(identity.status, asset).toBe(200)
+      if (identity.body.length < 1024) continue // too small to be worth encoding (Nitro skips them)
+      const br = await raw(asset, 'br, gzip')
+      const gz = await raw(asset, 'gzip')
+      expect(br.headers['content-encoding'], asset).toBe('br')
+      expect(gz.headers['content-encoding'], asset).toBe('gzip')
+      expect(br.body.length, asset).toBeLessThan(identity.body.length / 2)
+      expect(brotliDecompressSync(br.body).equals(identity.body), asset).toBe(true)
+      expect(gunzipSync(gz.body).equals(identity.body), asset).toBe(true)
+    }
+
+    // The first visit after a write renders the page; it comes gzipped like every later one.
+    const marketing = await signedIn('marketing')
+    const productId = flight.productIds[0]!
+    expect((await marketing.request('PUT', `/api/content/product_note/${productId}`, { body: `Quince and oyster shell, ${Date.now().toString(36)}.` })).status).toBe(200)
+    expect((await marketing.post(`/api/content/product_note/${productId}/publish`)).status).toBe(200)
+    const first = await raw(pourPath, 'gzip')
+    expect(first.headers['x-page-cache']).toBe('miss')
+    expect(first.headers['content-encoding']).toBe('gzip')
+    const again = await raw(pourPath)
+    expect(again.headers['x-page-cache']).toBe('hit')
+    expect(gunzipSync(first.body).equals(again.body)).toBe(true)
   })
 })
