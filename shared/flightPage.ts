@@ -56,3 +56,26 @@ export function listedSession(s: PublicSession): ListedSession {
   const { flightId: _flight, flightName: _name, startsLocal: _local, ...listed } = s
   return listed
 }
+
+/** Sessions the flight page sends with its first render: the next few (the rest come on "Show more"). */
+export const FLIGHT_PAGE_FIRST_SESSIONS = 6
+
+/** What the flight page says of the sessions on sale: the next few, how many in all, the lowest price and the lengths. */
+export interface SessionsOnSale {
+  first: ListedSession[]
+  count: number
+  fromPriceMinor: number | null
+  minutes: { min: number, max: number } | null
+}
+
+/** The flight page's session summary from every session on sale, keeping only the first few whole. */
+export function sessionsOnSale(list: PublicSession[], first = FLIGHT_PAGE_FIRST_SESSIONS): SessionsOnSale {
+  if (!list.length) return { first: [], count: 0, fromPriceMinor: null, minutes: null }
+  const minutes = list.map(s => s.durationMinutes)
+  return {
+    first: list.slice(0, first).map(listedSession),
+    count: list.length,
+    fromPriceMinor: Math.min(...list.map(s => s.priceMinor)),
+    minutes: { min: Math.min(...minutes), max: Math.max(...minutes) },
+  }
+}

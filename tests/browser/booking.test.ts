@@ -270,7 +270,9 @@ describe('on a phone: going back from the payment page, the cut-off, the session
     const more = page.getByRole('button', { name: /^Show \d+ more dates?$/ })
     const hidden = Number(/\d+/.exec(await more.innerText())![0])
     expect(hidden).toBeGreaterThanOrEqual(5)
-    await more.click()
+    // The page came with the next six; the others are asked for on the click.
+    const [answer] = await Promise.all([page.waitForResponse(r => /\/api\/flights\/\d+\/sessions$/.test(new URL(r.url()).pathname)), more.click()])
+    expect(answer.status()).toBe(200)
     await expect.poll(() => list.count()).toBe(4 + hidden)
     expect(await more.count()).toBe(0)
     expect(await page.getByText('No sessions are open for booking right now.').count()).toBe(0)

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { computeCurve, computeFilm } from '../../shared/science/glassModel'
-import { guestFlight, listedSession, roundSignificant } from '../../shared/flightPage'
+import { guestFlight, listedSession, roundSignificant, sessionsOnSale } from '../../shared/flightPage'
 import { tearFigures, tearSummary } from '../../shared/tearFigures'
 import { glassDrawing } from '../../shared/glassDrawing'
 import { filmCurveReading, filmCurveSummary } from '../../utils/filmCurve'
@@ -64,6 +64,17 @@ describe('the public flight page keeps what it shows', () => {
     const listed = listedSession(s)
     expect(Object.keys(listed)).not.toContain('flightName')
     expect(listed).toMatchObject({ id: 1, seatsLeft: 3, priceMinor: 3000, currency: 'USD', bookable: true })
+  })
+
+  it('sends the next six sessions whole, and the lowest price, the lengths and the count of all of them', () => {
+    const base = { flightId: 7, flightName: 'Test flight', startsLocal: '', endsAt: '', seats: 8, seatsLeft: 3, currency: 'USD', bookingClosesAt: '', status: 'open', bookable: true, closedReason: null }
+    const list = Array.from({ length: 25 }, (_, i) => ({ ...base, id: i + 1, startsAt: `2026-12-${String(i + 5).padStart(2, '0')}T19:00:00Z`, durationMinutes: i === 20 ? 90 : 60, priceMinor: i === 22 ? 2500 : 3000 })) as PublicSession[]
+    const onSale = sessionsOnSale(list)
+    expect(onSale.first.map(s => s.id)).toEqual([1, 2, 3, 4, 5, 6])
+    // The cheapest and the longest sessions are past the sixth: the summary still tells of them.
+    expect(onSale).toMatchObject({ count: 25, fromPriceMinor: 2500, minutes: { min: 60, max: 90 } })
+    expect(JSON.stringify(onSale).length).toBeLessThan(JSON.stringify(list.map(listedSession)).length / 3)
+    expect(sessionsOnSale([])).toEqual({ first: [], count: 0, fromPriceMinor: null, minutes: null })
   })
 })
 
