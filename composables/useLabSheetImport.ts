@@ -11,6 +11,7 @@ type LabSheetPhase = 'choose' | 'checking' | 'checked' | 'importing' | 'imported
  * one go. Nothing is written until the last step, and then all chosen rows or none.
  */
 function labSheetImport() {
+  const nuxtApp = useNuxtApp()
   const sheet = ref<LabSheetKind>('products')
   const fileName = ref('')
   const csv = ref('')
@@ -106,7 +107,8 @@ function labSheetImport() {
       const res = await $fetch<LabSheetImported>('/api/lab-sheets', { method: 'POST', body: { sheet: sheet.value, csv: csv.value, lines } })
       imported.value = res.imported
       phase.value = 'imported'
-      await refreshNuxtData(productsKey)
+      // The list is read afresh when next shown (it is paged on the server).
+      nuxtApp.runWithContext(() => clearNuxtData(productsKey))
     }
     catch (err) {
       error.value = readServerError(err).message

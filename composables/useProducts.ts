@@ -52,27 +52,32 @@ export function useProduct(id: number) {
 }
 
 /**
- * Writes to the catalogue. Each returns the product as the server now derives it and refreshes the
- * list and the product page, so every figure on screen comes from the glass model again.
+ * Writes to the catalogue. Each returns the product as the server now derives it; that answer
+ * becomes the product page's data at once (no second read, which could fail after the write had
+ * succeeded and empty the page), and the products list's kept copy is dropped, so the list is read
+ * afresh the next time it is shown (it is paged and sorted on the server: no copy here can be
+ * patched in place).
  */
 export function useProductActions() {
-  async function refreshAfter(id: number) {
-    await refreshNuxtData([productsKey, productKey(id)])
-  }
+  const nuxtApp = useNuxtApp()
+  const settle = (product: ProductView) => nuxtApp.runWithContext(() => {
+    useNuxtData<ProductView>(productKey(product.id)).data.value = product
+    clearNuxtData(productsKey)
+  })
   return {
     async create(body: unknown): Promise<ProductView> {
       const product = await $fetch<ProductView>('/api/products', { method: 'POST', body: body as Record<string, unknown> })
-      await refreshNuxtData(productsKey)
+      settle(product)
       return product
     },
     async save(id: number, patch: Record<string, unknown>): Promise<ProductView> {
       const product = await $fetch<ProductView>(`/api/products/${id}`, { method: 'PATCH', body: patch })
-      await refreshAfter(id)
+      settle(product)
       return product
     },
     async addMeasurement(id: number, body: MeasurementInput): Promise<ProductView> {
       const product = await $fetch<ProductView>(`/api/products/${id}/measurements`, { method: 'POST', body })
-      await refreshAfter(id)
+      settle(product)
       return product
     },
   }
