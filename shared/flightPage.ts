@@ -58,7 +58,7 @@ export function listedSession(s: PublicSession): ListedSession {
 }
 
 /** Sessions the flight page sends with its first render: the next few (the rest come on "Show more"). */
-export const FLIGHT_PAGE_FIRST_SESSIONS = 6
+const FLIGHT_PAGE_FIRST_SESSIONS = 6
 
 /** What the flight page says of the sessions on sale: the next few, how many in all, the lowest price and the lengths. */
 export interface SessionsOnSale {
