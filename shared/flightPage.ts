@@ -68,14 +68,17 @@ export interface SessionsOnSale {
   minutes: { min: number, max: number } | null
 }
 
-/** The flight page's session summary from every session on sale, keeping only the first few whole. */
+/** The flight page's session summary from every session on sale (the lowest price among those a guest can still book), keeping only the first few whole. */
 export function sessionsOnSale(list: PublicSession[], first = FLIGHT_PAGE_FIRST_SESSIONS): SessionsOnSale {
   if (!list.length) return { first: [], count: 0, fromPriceMinor: null, minutes: null }
   const minutes = list.map(s => s.durationMinutes)
+  // "From" is what a guest can book now, as the home page's card says it: a full or closed session's
+  // price is left out, and with none open there is no "from" price.
+  const open = list.filter(s => s.bookable)
   return {
     first: list.slice(0, first).map(listedSession),
     count: list.length,
-    fromPriceMinor: Math.min(...list.map(s => s.priceMinor)),
+    fromPriceMinor: open.length ? Math.min(...open.map(s => s.priceMinor)) : null,
     minutes: { min: Math.min(...minutes), max: Math.max(...minutes) },
   }
 }

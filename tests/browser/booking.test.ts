@@ -4,11 +4,12 @@ import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import type { BrowserContext, Page } from 'playwright-core'
 import { DateTime } from 'luxon'
 import { SHOTS_DIR, openBrowser, payWithTestCard, shot, showCurveChart, signInThroughForm } from '../support/browser'
-import { type Client, uniqueEmail } from '../support/http'
+import { Client, uniqueEmail } from '../support/http'
 import { withDb } from '../support/db'
 import { linkUrl, waitForMail } from '../support/mail'
 import { bookingBody, checkoutIdOf, demoFlightId, newGuest, newSession, payCheckout, signedIn, waitForState } from '../support/booking'
 import { DEMO_PASSWORD, DEMO_VENUE } from '../../server/demo/data'
+import { formatMoney } from '../../shared/money'
 
 const PHONE = { width: 390, height: 844 } // a common phone viewport in CSS pixels (common practice, no source)
 
@@ -263,7 +264,8 @@ describe('on a phone: going back from the payment page, the cut-off, the session
   it('the flight page shows more dates on request, and no "no sessions" line while there are some', { timeout: 60_000 }, async () => {
     for (let i = 0; i < 5; i++) await newSession(manager, { hoursAhead: 24 * (20 + i) })
     const page = await phone.context.newPage()
-    await page.goto(`/flights/${await demoFlightId()}`)
+    const flightId = await demoFlightId()
+    await page.goto(`/flights/${flightId}`)
     const list = page.getByRole('complementary').getByRole('listitem')
     await page.getByRole('heading', { name: 'Next sessions' }).waitFor()
     expect(await list.count()).toBe(4)
@@ -276,6 +278,10 @@ describe('on a phone: going back from the payment page, the cut-off, the session
     await expect.poll(() => list.count()).toBe(4 + hidden)
     expect(await more.count()).toBe(0)
     expect(await page.getByText('No sessions are open for booking right now.').count()).toBe(0)
+    // "From" is the lowest price a guest can book, as the home page's card says it.
+    const published = ((await new Client().get('/api/flights/published')).body as { id: number, priceFromMinor: number | null }[]).find(f => f.id === flightId)!
+    expect(published.priceFromMinor).not.toBeNull()
+    expect(await page.getByText(/^From .+ per guest$/).innerText()).toBe(`From ${formatMoney(published.priceFromMinor!, 'USD', DEMO_VENUE.locale)} per guest`)
     await page.close()
   })
 

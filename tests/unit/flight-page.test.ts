@@ -75,6 +75,10 @@ describe('the public flight page keeps what it shows', () => {
     expect(onSale).toMatchObject({ count: 25, fromPriceMinor: 2500, minutes: { min: 60, max: 90 } })
     expect(JSON.stringify(onSale).length).toBeLessThan(JSON.stringify(list.map(listedSession)).length / 3)
     expect(sessionsOnSale([])).toEqual({ first: [], count: 0, fromPriceMinor: null, minutes: null })
+    // A full session's lower price is not a price a guest can book.
+    const full = list.map(s => (s.id === 23 ? { ...s, bookable: false, seatsLeft: 0 } : s))
+    expect(sessionsOnSale(full).fromPriceMinor).toBe(3000)
+    expect(sessionsOnSale(full.map(s => ({ ...s, bookable: false })))).toMatchObject({ count: 25, fromPriceMinor: null, minutes: { min: 60, max: 90 } })
   })
 })
 
