@@ -19,8 +19,16 @@ let sessionId: number
 let flightId: number
 let day: string
 
-async function moveStart(minutesFromNow: number) {
-  await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = ? WHERE id = ?', [startTodayIn(minutesFromNow), sessionId]))
+/**
+ * Moves the session's start; `today` keeps it on the venue's today (the door's steps need that).
+ * A start that must stay bookable may fall after midnight: late in the venue's evening, "today in
+ * 90 minutes" clamped to the day's end would sit inside the booking cut-off.
+ */
+async function moveStart(minutesFromNow: number, where: 'today' | 'anyDay' = 'today') {
+  const start = where === 'today'
+    ? startTodayIn(minutesFromNow)
+    : DateTime.now().plus({ minutes: minutesFromNow, seconds: 20 + Math.floor(Math.random() * 120) }).toJSDate()
+  await withDb(c => c.query('UPDATE tasting_sessions SET starts_at = ? WHERE id = ?', [start, sessionId]))
   const [rows] = await withDb(c => c.query('SELECT starts_at AS s FROM tasting_sessions WHERE id = ?', [sessionId]))
   day = DateTime.fromJSDate((rows as { s: Date }[])[0]!.s, { zone: DEMO_VENUE.timeZone }).toISODate()!
 }
@@ -105,7 +113,7 @@ describe('one session, every screen', () => {
   })
 
   it('a live hold takes seats everywhere; one whose time ran out takes none anywhere', async () => {
-    await moveStart(90) // bookable again (cut-off 60 minutes), so guests can hold seats
+    await moveStart(90, 'anyDay') // bookable again (cut-off 60 minutes), so guests can hold seats
     const holder = await newGuest('agree-hold')
     const hold = await holder.client.post('/api/bookings', bookingBody(sessionId, holder, 1))
     expect(hold.status).toBe(201)
