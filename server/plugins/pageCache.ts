@@ -22,6 +22,9 @@ const WAIT_FOR_RENDER_MS = 5_000
 
 interface PageCacheState { key: string, hit: boolean, generation: number }
 
+/** Whether the browser takes the page gzipped (the cache keeps it so, made once). */
+const acceptsGzip = (event: H3Event) => /\bgzip\b/.test(getRequestHeader(event, 'accept-encoding') ?? '')
+
 const stateOf = (event: H3Event) => event.context.pageCache as PageCacheState | undefined
 
 export default defineNitroPlugin((nitro) => {
@@ -47,7 +50,7 @@ export default defineNitroPlugin((nitro) => {
       return
     }
     event.context.pageCache = { key, hit: true, generation: page.generation } satisfies PageCacheState
-    const gzip = /\bgzip\b/.test(getRequestHeader(event, 'accept-encoding') ?? '')
+    const gzip = acceptsGzip(event)
     const etag = gzip ? page.gzippedEtag : page.etag
     const fresh = getRequestHeader(event, 'if-none-match') === etag
     ctx.response = {
@@ -80,7 +83,7 @@ export default defineNitroPlugin((nitro) => {
     response.headers.vary = VARY
     if (stored) {
       // The first visitor gets the page gzipped too, as every later one does from the cache.
-      const gzip = /\bgzip\b/.test(getRequestHeader(event, 'accept-encoding') ?? '')
+      const gzip = acceptsGzip(event)
       if (gzip) response.body = stored.gzipped as unknown as string
       Object.assign(response.headers, { 'cache-control': FROM_CACHE, 'etag': gzip ? stored.gzippedEtag : stored.etag, 'x-page-cache': 'miss', ...(gzip ? { 'content-encoding': 'gzip' } : {}) })
     }

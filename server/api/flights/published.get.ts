@@ -1,6 +1,7 @@
 import { and, desc, eq } from 'drizzle-orm'
 import type { PublishedFlight } from '../../../shared/types/flights'
 import { groupedBy } from '../../../shared/utils/grouped'
+import { sessionsOnSale } from '../../../shared/flightPage'
 
 const LIST_MAX_AGE_S = 5
 
@@ -26,7 +27,8 @@ async function publishedFlights(): Promise<PublishedFlight[]> {
   const byFlight = groupedBy(sessions, s => s.flightId)
   return views.map((f) => {
     const own = byFlight.get(f.id) ?? []
-    const bookable = own.filter(s => s.bookable)
+    // The same "from" price, count and lengths the flight's own page states (shared/flightPage.ts).
+    const onSale = sessionsOnSale(own, 0)
     return {
       id: f.id,
       name: f.name,
@@ -34,11 +36,11 @@ async function publishedFlights(): Promise<PublishedFlight[]> {
       pourCount: f.pours.length,
       kinds: [...new Set(f.pours.map(p => p.product.kind))],
       standardDrinks: f.totals.standardDrinks,
-      priceFromMinor: bookable.length ? Math.min(...bookable.map(s => s.priceMinor)) : null,
+      priceFromMinor: onSale.fromPriceMinor,
       currency: venue.currency,
       nextSessions: own.slice(0, 3),
-      sessionCount: own.length,
-      lengthMinutes: own.length ? { min: Math.min(...own.map(s => s.durationMinutes)), max: Math.max(...own.map(s => s.durationMinutes)) } : null,
+      sessionCount: onSale.count,
+      lengthMinutes: onSale.minutes,
       photos: f.pours.flatMap(p => (p.photo ? [p.photo] : [])),
     }
   })
